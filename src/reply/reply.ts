@@ -1,0 +1,92 @@
+/**
+ * The one typed reply every path ends in. Renderers (src/render) turn it into console text,
+ * JSON, Slack blocks or a Teams card; they format numbers but never compute physics.
+ */
+
+export interface ReplyValue {
+  /** Stable key, quantity then unit: 'dopantDensityPerCm3', 'carrierType'… (README lists them). */
+  readonly key: string;
+  readonly value: number | string;
+  /** Unit in the trade's notation ('cm⁻³', 'Ω·cm', 'Ω/□', 'K', 'eV', 'cm²/V·s', '' for none). */
+  readonly unit: string;
+  readonly label: string;
+  /** Significant figures to show; 3 when absent. */
+  readonly sigFigs?: number;
+  /** Headline values are shown first and largest. */
+  readonly headline?: boolean;
+}
+
+export interface ReplyInput {
+  readonly value: number | string;
+  readonly unit?: string;
+  readonly label: string;
+  /** The text the person typed for it, when different from the value shown. */
+  readonly asTyped?: string;
+}
+
+export interface ReplyWarning {
+  readonly code: string;
+  readonly message: string;
+}
+
+export interface ReplyModel {
+  readonly id: string;
+  readonly name: string;
+  readonly citation: string;
+  /** Validity as a sentence, e.g. 'B: 1e-4 to 1e4 Ω·cm at 23 °C'. */
+  readonly validity?: string;
+}
+
+/** A block of free content: help text, model lists, lot tables, digests. */
+export interface ReplySection {
+  readonly heading?: string;
+  readonly lines?: readonly string[];
+  readonly table?: { readonly columns: readonly string[]; readonly rows: readonly (readonly string[])[] };
+}
+
+/** Everything `why` shows: inputs as understood, equations, parameters, sources, steps. */
+export interface Derivation {
+  readonly equations: readonly string[];
+  readonly parameters: readonly {
+    readonly name: string;
+    readonly value: number | string;
+    readonly unit?: string;
+    readonly source?: string;
+  }[];
+  readonly steps: readonly string[];
+  readonly sources: readonly string[];
+}
+
+export interface ReplyOk {
+  readonly ok: true;
+  readonly id: string;
+  readonly command: string;
+  readonly title: string;
+  /** ISO time the reply was made (from the injected clock). */
+  readonly createdAt: string;
+  readonly values: readonly ReplyValue[];
+  readonly inputs: Readonly<Record<string, ReplyInput>>;
+  readonly assumptions: readonly string[];
+  readonly model?: ReplyModel;
+  readonly warnings: readonly ReplyWarning[];
+  readonly cautions: readonly string[];
+  readonly sections?: readonly ReplySection[];
+  readonly derivation?: Derivation;
+  /** Whether the result can drive a decision (then the procedure caution is always present). */
+  readonly decision: boolean;
+}
+
+export interface ReplyError {
+  readonly ok: false;
+  readonly error: {
+    readonly code: string;
+    readonly message: string;
+    /** The right form, e.g. 'rho <value> <unit> <dopant>'. */
+    readonly usage?: string;
+    readonly example?: string;
+    /** "did you mean" candidate. */
+    readonly suggestion?: string;
+  };
+}
+
+export type Reply = ReplyOk | ReplyError;
