@@ -1,0 +1,4 @@
+export * from './mobility-model.js';
+export * from './masetti-1983.js';
+export * from './caughey-thomas-1967.js';
+export * from './registry.js';

@@ -1,0 +1,2 @@
+export * from './brent.js';
+export * from './invert-density.js';

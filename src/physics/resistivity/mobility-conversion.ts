@@ -1,0 +1,105 @@
+/**
+ * A resistivity conversion built from a mobility model: ρ = 1/(q·N·μ(N)) forward, and the
+ * bracketed root finder (src/physics/numeric/invert-density.ts) for ρ → N.
+ *
+ * Assumes one carrier type (the majority carrier), full ionization (carrier density = N) and
+ * no compensation; the mobility model's temperature (300 K for Masetti and Caughey–Thomas).
+ */
+import { ELEMENTARY_CHARGE_C } from '../constants.js';
+import type { MobilityModel } from '../mobility/mobility-model.js';
+import { invertResistivityForDensity, DENSITY_BRACKET_LOG10_PER_CM3 } from '../numeric/invert-density.js';
+import type { Problem } from '../problems.js';
+import type { Dopant, Parameter, Range } from '../types.js';
+import { widen, type ConversionDomain, type RegisteredConversionModel } from './conversion-model.js';
+
+const BRACKET: Range = {
+  min: Math.pow(10, DENSITY_BRACKET_LOG10_PER_CM3.min),
+  max: Math.pow(10, DENSITY_BRACKET_LOG10_PER_CM3.max),
+};
+
+/** Kernel: ρ = 1/(q·N·μ), Ω·cm, from N in cm⁻³ and μ in cm²/(V·s). */
+export function resistivityFromMobilityOhmCm(dopantDensityPerCm3: number, mobilityCm2PerVs: number): number {
+  return 1 / (ELEMENTARY_CHARGE_C * dopantDensityPerCm3 * mobilityCm2PerVs);
+}
+
+export interface MobilityConversionOptions {
+  readonly id: string;
+  readonly name: string;
+  readonly aliases: readonly string[];
+  /** Dopants the conversion accepts (default: the mobility model's). */
+  readonly dopants?: readonly Dopant[];
+  /** Which of the mobility model's parameter sets serves a dopant (default: itself). */
+  readonly mobilityDopant?: (dopant: Dopant) => Dopant;
+  /** Validity in density per dopant (default: the mobility model's). */
+  readonly validityDensityPerCm3?: Readonly<Partial<Record<Dopant, Range>>>;
+  readonly extraNotes?: readonly string[];
+  readonly standingProblems?: (dopant: Dopant) => readonly Problem[];
+}
+
+function intersect(a: Range, b: Range): Range {
+  return { min: Math.max(a.min, b.min), max: Math.min(a.max, b.max) };
+}
+
+export function conversionFromMobility(
+  mobility: MobilityModel,
+  options: MobilityConversionOptions,
+): RegisteredConversionModel {
+  const dopants = options.dopants ?? mobility.dopants;
+  const mapDopant = options.mobilityDopant ?? ((d: Dopant) => d);
+  const mu = (n: number, d: Dopant) => mobility.mobilityCm2PerVs(n, mapDopant(d));
+  const rhoOf = (n: number, d: Dopant) => resistivityFromMobilityOhmCm(n, mu(n, d));
+
+  const validity: Partial<Record<Dopant, { resistivityOhmCm: Range; dopantDensityPerCm3: Range }>> = {};
+  const domain: Partial<Record<Dopant, ConversionDomain>> = {};
+  for (const d of dopants) {
+    const nRange = options.validityDensityPerCm3?.[d] ?? mobility.validityDensityPerCm3[mapDopant(d)];
+    if (!nRange) continue;
+    validity[d] = {
+      dopantDensityPerCm3: nRange,
+      resistivityOhmCm: { min: rhoOf(nRange.max, d), max: rhoOf(nRange.min, d) },
+    };
+    const nDomain = intersect(widen(nRange, 10), BRACKET);
+    domain[d] = {
+      dopantDensityPerCm3: nDomain,
+      resistivityOhmCm: { min: rhoOf(nDomain.max, d), max: rhoOf(nDomain.min, d) },
+    };
+  }
+
+  return {
+    id: options.id,
+    name: options.name,
+    citation: mobility.citation,
+    aliases: options.aliases,
+    dopants,
+    referenceTemperatureK: mobility.referenceTemperatureK,
+    validity,
+    domain,
+    equations: [
+      'ρ = 1/(q·N·μ(N)); ρ → N by Brent root finding in log10 N over 1e10–1e22 cm⁻³',
+      ...mobility.equations,
+    ],
+    notes: [...mobility.notes, ...(options.extraNotes ?? [])],
+    assumptionCodes: ['uncompensated', 'full_ionization', 'majority_carriers_only', 'temperature_300K'],
+    parameters(dopant: Dopant): readonly Parameter[] {
+      return [
+        { name: 'q', value: ELEMENTARY_CHARGE_C, unit: 'C', source: 'CODATA 2018 (exact)' },
+        ...mobility.parameters(mapDopant(dopant)),
+      ];
+    },
+    dopantDensityFromResistivity(resistivityOhmCm: number, dopant: Dopant): number {
+      if (!(resistivityOhmCm > 0)) return Number.NaN;
+      const r = invertResistivityForDensity((n) => rhoOf(n, dopant), resistivityOhmCm);
+      return r.converged ? r.dopantDensityPerCm3 : Number.NaN;
+    },
+    resistivityFromDopantDensity(dopantDensityPerCm3: number, dopant: Dopant): number {
+      if (!(dopantDensityPerCm3 > 0)) return Number.NaN;
+      return rhoOf(dopantDensityPerCm3, dopant);
+    },
+    mobilityCm2PerVs(dopantDensityPerCm3: number, dopant: Dopant): number {
+      return mu(dopantDensityPerCm3, dopant);
+    },
+    standingProblems(dopant: Dopant): readonly Problem[] {
+      return options.standingProblems?.(dopant) ?? [];
+    },
+  };
+}
