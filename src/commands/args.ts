@@ -1,0 +1,133 @@
+/**
+ * Order-free reading of a command's tokens. Each `take…` consumes what it found; whatever is
+ * left at the end is reported back to the person as not understood.
+ */
+import { DIMENSIONS, parseQuantity, type Dimension, type Quantity } from './units.js';
+import type { Token } from './tokens.js';
+
+export class ArgError extends Error {
+  constructor(
+    readonly code: string,
+    message: string,
+  ) {
+    super(message);
+  }
+}
+
+export class Args {
+  private readonly used: boolean[];
+  constructor(readonly tokens: readonly Token[]) {
+    this.used = tokens.map(() => false);
+  }
+
+  /** The value after one of `keys` ("thick 525um", "thick=525um"), read as `dimension`. */
+  keyed(keys: readonly string[], dimension: Dimension): Quantity | undefined {
+    const i = this.findWord(keys);
+    if (i < 0) return undefined;
+    const next = this.tokens[i + 1];
+    const key = (this.tokens[i] as { text: string }).text;
+    if (!next || next.kind !== 'number' || this.used[i + 1]) {
+      throw new ArgError(
+        'missing_value',
+        `"${key}" needs ${DIMENSIONS[dimension].name} after it, e.g. "${key} ${DIMENSIONS[dimension].example}"`,
+      );
+    }
+    this.used[i] = true;
+    this.used[i + 1] = true;
+    return this.read(next, dimension, key);
+  }
+
+  /** The word after one of `keys` ("model masetti", "expect n"). */
+  keyedWord(keys: readonly string[]): string | undefined {
+    const i = this.findWord(keys);
+    if (i < 0) return undefined;
+    const next = this.tokens[i + 1];
+    const key = (this.tokens[i] as { text: string }).text;
+    if (!next || this.used[i + 1]) throw new ArgError('missing_value', `"${key}" needs a word after it`);
+    this.used[i] = true;
+    this.used[i + 1] = true;
+    return next.raw;
+  }
+
+  /** A flag word is present ("epi"). */
+  flag(keys: readonly string[]): boolean {
+    const i = this.findWord(keys);
+    if (i < 0) return false;
+    this.used[i] = true;
+    return true;
+  }
+
+  /** The first unused word that `map` knows, mapped. */
+  word<T>(map: Readonly<Record<string, T>>): { value: T; raw: string } | undefined {
+    for (let i = 0; i < this.tokens.length; i++) {
+      const t = this.tokens[i]!;
+      if (this.used[i] || t.kind !== 'word') continue;
+      const hit = lookup(map, t.text);
+      if (hit !== undefined) {
+        this.used[i] = true;
+        return { value: hit, raw: t.raw };
+      }
+    }
+    return undefined;
+  }
+
+  /**
+   * The first unused number whose unit reads as one of `dimensions`; a bare number takes the
+   * first of them (`bareNumber` tells the caller, to say so in the assumptions).
+   */
+  quantity(dimensions: readonly Dimension[]): (Quantity & { bareNumber: boolean }) | undefined {
+    for (let i = 0; i < this.tokens.length; i++) {
+      const t = this.tokens[i]!;
+      if (this.used[i] || t.kind !== 'number') continue;
+      if (t.unitText === '') {
+        this.used[i] = true;
+        return { ...this.read(t, dimensions[0]!, undefined), bareNumber: true };
+      }
+      const q = parseQuantity(`${t.value} ${t.unitText}`, dimensions[0]);
+      if (q.ok && dimensions.includes(q.quantity.dimension)) {
+        this.used[i] = true;
+        return { ...q.quantity, raw: t.raw, bareNumber: false };
+      }
+    }
+    return undefined;
+  }
+
+  /** The first unused number token, whatever its unit (to explain a wrong dimension). */
+  anyNumber(): Token | undefined {
+    return this.tokens.find((t, i) => !this.used[i] && t.kind === 'number');
+  }
+
+  leftovers(): string[] {
+    return this.tokens.filter((_t, i) => !this.used[i]).map((t) => t.raw);
+  }
+
+  private findWord(keys: readonly string[]): number {
+    const lower = keys.map((k) => k.toLowerCase());
+    return this.tokens.findIndex(
+      (t, i) => !this.used[i] && t.kind === 'word' && lower.includes(t.text.toLowerCase()),
+    );
+  }
+
+  private read(t: Token, dimension: Dimension, key: string | undefined): Quantity {
+    const q = parseQuantity(t.kind === 'number' ? `${t.value} ${t.unitText}` : t.raw, dimension);
+    const what = key ? `"${key}"` : 'the value';
+    if (!q.ok) {
+      throw new ArgError(q.reason === 'not_finite' ? 'not_finite' : 'bad_unit', `${q.message}; ${what} takes ${DIMENSIONS[dimension].name}, e.g. ${DIMENSIONS[dimension].example}`);
+    }
+    if (q.quantity.dimension !== dimension) {
+      throw new ArgError(
+        'wrong_dimension',
+        `"${t.raw}" is ${DIMENSIONS[q.quantity.dimension].name}, but ${what} takes ${DIMENSIONS[dimension].name} (e.g. ${DIMENSIONS[dimension].example})`,
+      );
+    }
+    return { ...q.quantity, raw: t.raw };
+  }
+}
+
+/** Case-sensitive hit first (so "P" and "p" can differ), then case-insensitive. */
+function lookup<T>(map: Readonly<Record<string, T>>, text: string): T | undefined {
+  if (Object.hasOwn(map, text)) return map[text];
+  const lower = text.toLowerCase();
+  for (const k of Object.keys(map)) if (k.toLowerCase() === lower) return map[k];
+  return undefined;
+}

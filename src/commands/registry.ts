@@ -1,0 +1,34 @@
+/**
+ * Every command the bot answers, in the order `help` lists them. To add one: write its spec
+ * (src/commands/<verb>.ts, see DEVELOPERS.md) and add it here.
+ */
+import { dopingCommand } from './doping.js';
+import { helpCommandFor } from './help.js';
+import { modelsCommand } from './models.js';
+import { niCommand } from './ni.js';
+import { rhoCommand } from './rho.js';
+import { sheetCommand } from './sheet.js';
+import type { CommandSpec } from './spec.js';
+import { typeCommand } from './type.js';
+import { whyCommand } from './why.js';
+
+export const COMMANDS: readonly CommandSpec<any>[] = [
+  rhoCommand,
+  dopingCommand,
+  sheetCommand,
+  typeCommand,
+  niCommand,
+  // (more commands are registered here)
+  modelsCommand,
+  whyCommand,
+  helpCommandFor(() => COMMANDS),
+];
+
+export function findCommand(verb: string): CommandSpec<any> | undefined {
+  const v = verb.toLowerCase();
+  return COMMANDS.find((c) => c.verb === v || c.aliases?.some((a) => a.toLowerCase() === v));
+}
+
+export function knownVerbs(): string[] {
+  return COMMANDS.flatMap((c) => [c.verb, ...(c.aliases ?? [])]);
+}

@@ -1,0 +1,175 @@
+/**
+ * `sheet`: four-point-probe reading (Rs as read, or V and I) → sheet resistance with the
+ * geometry factors → resistivity (with a thickness) → dopant density (with a dopant).
+ */
+import { z } from 'zod';
+import { fourPointProbe } from '../physics/four-point/sheet.js';
+import { errorReply, okReply } from '../reply/build.js';
+import { ELECTRICAL_HAZARD } from '../reply/cautions.js';
+import { formatNumber } from '../reply/format.js';
+import { assumptionText } from '../reply/messages.js';
+import type { ReplyInput, ReplyValue } from '../reply/reply.js';
+import { ArgError } from './args.js';
+import { DopantSchema, identity, readDopant, readModelId } from './common.js';
+import { conversionReply, refusalMessage } from './describe.js';
+import { defineCommand } from './spec.js';
+
+export const SheetRequest = z
+  .object({
+    sheetResistanceOhmPerSq: z.number().finite().optional(),
+    voltageV: z.number().finite().optional(),
+    currentA: z.number().finite().optional(),
+    thicknessCm: z.number().finite().optional(),
+    spacingCm: z.number().finite().optional(),
+    diameterCm: z.number().finite().optional(),
+    dopant: DopantSchema.optional(),
+    dopantAsTyped: z.string().optional(),
+    modelId: z.string().optional(),
+    asTyped: z.record(z.string(), z.string()),
+  })
+  .refine((r) => r.sheetResistanceOhmPerSq !== undefined || (r.voltageV !== undefined && r.currentA !== undefined), {
+    message: 'Give the sheet resistance (e.g. 45 ohm/sq) or the voltage and current (e.g. 4.1mV 1mA).',
+  });
+export type SheetRequest = z.infer<typeof SheetRequest>;
+
+const USAGE = 'sheet <Rs ohm/sq | V I> [thick <t>] [spacing <s>] [diam <d>] [p|n|dopant] [model <id>]';
+const EXAMPLE = 'sheet 45 ohm/sq thick 525um n';
+
+export const sheetCommand = defineCommand<SheetRequest>({
+  verb: 'sheet',
+  aliases: ['4pp', 'fourpoint', 'rs'],
+  help: {
+    summary: 'Four-point-probe reading → sheet resistance, resistivity and dopant density, with each geometry factor.',
+    usage: USAGE,
+    examples: [
+      'sheet 45 ohm/sq thick 525um n',
+      'sheet 4.1mV 1mA thick 725um spacing 1mm diam 200mm p',
+      'sheet 120 Ω/□',
+      'sheet 2.2mV 10uA thick=0.5mm spacing=1.59mm boron',
+      '45 ohm/sq thick 525um n',
+    ],
+    options: [
+      'thick <t>: wafer or layer thickness (µm, um, mm) — needed for resistivity',
+      'spacing <s>: probe pin spacing — enables the finite-thickness factor F(t/s)',
+      'diam <d>: wafer diameter, probe centred — enables the finite-diameter factor C(d/s)',
+      'p | n | dopant: converts the resistivity to a dopant density',
+    ],
+    seeAlso: ['rho', 'why'],
+  },
+  schema: SheetRequest,
+  parse(args) {
+    const asTyped: Record<string, string> = {};
+    const thickness = args.keyed(['thick', 'thickness', 't'], 'length');
+    const spacing = args.keyed(['spacing', 'pitch', 's'], 'length');
+    const diameter = args.keyed(['diam', 'diameter', 'd', 'wafer'], 'length');
+    const rs = args.quantity(['sheetResistance']);
+    const v = rs ? undefined : args.quantity(['voltage']);
+    const i = rs ? undefined : args.quantity(['current']);
+    if (!rs && !(v && i)) {
+      const bad = args.anyNumber();
+      throw new ArgError(
+        bad ? 'wrong_dimension' : 'missing_value',
+        bad && !v && !i
+          ? `"${bad.raw}" is not a sheet resistance; give it in ohm/sq (Ω/□), or give the voltage and the current, e.g. ${EXAMPLE}`
+          : `Give the sheet resistance in ohm/sq, or both the voltage and the current (e.g. sheet 4.1mV 1mA thick 725um p).`,
+      );
+    }
+    for (const [k, q] of Object.entries({ rs, v, i, thickness, spacing, diameter })) if (q) asTyped[k] = q.raw;
+    const d = readDopant(args);
+    return {
+      sheetResistanceOhmPerSq: rs?.value,
+      voltageV: v?.value,
+      currentA: i?.value,
+      thicknessCm: thickness?.value,
+      spacingCm: spacing?.value,
+      diameterCm: diameter?.value,
+      dopant: d?.dopant,
+      dopantAsTyped: d?.raw,
+      modelId: readModelId(args),
+      asTyped,
+    };
+  },
+  run(req, ctx) {
+    const outcome = fourPointProbe({
+      ...(req.sheetResistanceOhmPerSq !== undefined ? { sheetResistanceOhmPerSq: req.sheetResistanceOhmPerSq } : {}),
+      ...(req.voltageV !== undefined ? { voltageV: req.voltageV } : {}),
+      ...(req.currentA !== undefined ? { currentA: req.currentA } : {}),
+      ...(req.thicknessCm !== undefined ? { thicknessCm: req.thicknessCm } : {}),
+      ...(req.spacingCm !== undefined ? { spacingCm: req.spacingCm } : {}),
+      ...(req.diameterCm !== undefined ? { diameterCm: req.diameterCm } : {}),
+      ...(req.dopant ? { dopant: req.dopant } : {}),
+      ...(req.modelId ? { modelId: req.modelId } : {}),
+    });
+    if (!outcome.ok) return errorReply(outcome.refusal.code, refusalMessage(outcome.refusal), { usage: USAGE, example: EXAMPLE });
+    const r = outcome.value;
+    const inputs: Record<string, ReplyInput> = {};
+    const t = req.asTyped;
+    if (req.sheetResistanceOhmPerSq !== undefined) inputs['sheetResistance'] = { value: req.sheetResistanceOhmPerSq, unit: 'Ω/□', label: 'Sheet resistance as read', asTyped: t['rs'] ?? '' };
+    if (req.voltageV !== undefined) inputs['voltage'] = { value: req.voltageV, unit: 'V', label: 'Voltage (inner pins)', asTyped: t['v'] ?? '' };
+    if (req.currentA !== undefined) inputs['current'] = { value: req.currentA, unit: 'A', label: 'Current (outer pins)', asTyped: t['i'] ?? '' };
+    if (req.thicknessCm !== undefined) inputs['thickness'] = { value: req.thicknessCm * 1e4, unit: 'µm', label: 'Thickness', asTyped: t['thickness'] ?? '' };
+    if (req.spacingCm !== undefined) inputs['spacing'] = { value: req.spacingCm * 10, unit: 'mm', label: 'Probe spacing', asTyped: t['spacing'] ?? '' };
+    if (req.diameterCm !== undefined) inputs['diameter'] = { value: req.diameterCm * 10, unit: 'mm', label: 'Wafer diameter', asTyped: t['diameter'] ?? '' };
+    if (req.dopant) inputs['dopant'] = { value: req.dopant, label: 'Dopant', asTyped: req.dopantAsTyped ?? req.dopant };
+
+    const geometryValues: ReplyValue[] = [
+      { key: 'sheetResistanceOhmPerSq', value: r.sheetResistanceOhmPerSq, unit: 'Ω/□', label: 'Sheet resistance', headline: r.resistivityOhmCm === undefined },
+      { key: 'thicknessCorrectionFactor', value: r.thicknessFactor, unit: '', label: 'Thickness factor F(t/s)', sigFigs: 4 },
+      { key: 'diameterCorrectionFactor', value: r.diameterFactor, unit: '', label: 'Diameter factor C(d/s)', sigFigs: 4 },
+    ];
+    const assumptions = r.assumptionCodes.map(assumptionText);
+    const cautions = req.voltageV !== undefined ? [ELECTRICAL_HAZARD] : [];
+    const steps = [
+      req.voltageV !== undefined
+        ? `Rs = C·V/I = ${formatNumber(r.diameterFactor, { sigFigs: 5 })} × ${formatNumber(req.voltageV, { sigFigs: 6 })} V / ${formatNumber(req.currentA ?? Number.NaN, { sigFigs: 6 })} A = ${formatNumber(r.sheetResistanceOhmPerSq, { sigFigs: 6 })} Ω/□`
+        : `Rs = ${formatNumber(r.sheetResistanceOhmPerSq, { sigFigs: 6 })} Ω/□ (diameter factor ${formatNumber(r.diameterFactor, { sigFigs: 5 })} relative to π/ln2 applied)`,
+      ...(r.resistivityOhmCm !== undefined
+        ? [`ρ = Rs·t·F = ${formatNumber(r.sheetResistanceOhmPerSq, { sigFigs: 6 })} × ${formatNumber(req.thicknessCm ?? Number.NaN, { sigFigs: 6 })} cm × ${formatNumber(r.thicknessFactor, { sigFigs: 5 })} = ${formatNumber(r.resistivityOhmCm, { sigFigs: 6 })} Ω·cm`]
+        : []),
+    ];
+    const geometryEquations = [
+      'Rs = C(d/s)·V/I, C = π / (ln2 + ln(((d/s)² + 3)/((d/s)² − 3))) → π/ln2 for d ≫ s (Smits 1958)',
+      'ρ = Rs·t·F(t/s), F = ln2 / ln(sinh(t/s) / sinh(t/2s)) → 1 for t ≪ s (Uhlir 1955)',
+    ];
+    const geometrySources = [
+      'F. M. Smits, Bell Syst. Tech. J. 37, 711 (1958)',
+      'A. Uhlir Jr., Bell Syst. Tech. J. 34, 105 (1955)',
+    ];
+    if (r.conversion) {
+      return conversionReply(identity(ctx), r.conversion, {
+        command: 'sheet',
+        title: `Four-point probe: ${formatNumber(r.sheetResistanceOhmPerSq)} Ω/□ → ${formatNumber(r.conversion.resistivityOhmCm)} Ω·cm ${r.conversion.dopant}`,
+        headline: 'density',
+        inputs,
+        extraValues: geometryValues,
+        extraAssumptions: assumptions,
+        extraProblems: r.problems,
+        extraSteps: steps,
+        extraEquations: geometryEquations,
+        extraSources: geometrySources,
+        cautions,
+      });
+    }
+    const values = [...geometryValues];
+    if (r.resistivityOhmCm !== undefined) values.unshift({ key: 'resistivityOhmCm', value: r.resistivityOhmCm, unit: 'Ω·cm', label: 'Resistivity', headline: true });
+    const hints: string[] = [];
+    if (req.thicknessCm === undefined) hints.push('Add `thick <t>` for the resistivity.');
+    else if (!req.dopant) hints.push('Add the type or dopant (p, n, boron…) for the dopant density.');
+    return okReply(identity(ctx), {
+      command: 'sheet',
+      title: r.resistivityOhmCm !== undefined ? `Four-point probe: ${formatNumber(r.resistivityOhmCm)} Ω·cm` : `Four-point probe: ${formatNumber(r.sheetResistanceOhmPerSq)} Ω/□`,
+      values,
+      inputs,
+      assumptions: [...assumptions, ...hints],
+      model: {
+        id: 'four-point-geometry',
+        name: 'Collinear four-point probe, geometry corrections',
+        citation: geometrySources.join('; '),
+        validity: 'F(t/s) for a layer on an insulating base; C(d/s) for a centred probe, d/s > √3',
+      },
+      problems: r.problems,
+      cautions,
+      derivation: { equations: geometryEquations, parameters: [], steps, sources: geometrySources },
+    });
+  },
+});

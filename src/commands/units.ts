@@ -1,0 +1,190 @@
+/**
+ * Quantities people type, parsed once, here, with mathjs units. Everything after this file
+ * works in canonical units: Ω·cm, Ω/□, cm⁻³, K, cm, V, A, cm³/C, 1/K.
+ *
+ * Spellings accepted (tested in test/commands/units.test.ts): Ω·cm, ohm-cm, ohm cm, ohm*cm,
+ * mΩ·cm, Ω·m, ohm/sq, Ω/□, K, °C, degC, C (where a temperature is expected), µm, um, mm, mV, V,
+ * mA, µA, cm^-3, cm-3, /cm3, cm⁻³, cm3/C, %/K; numbers 1.5e15, 1.5x10^15, 1.5×10¹⁵.
+ */
+import { unit as mathUnit, type Unit } from 'mathjs';
+
+export type Dimension =
+  | 'resistivity'
+  | 'sheetResistance'
+  | 'density'
+  | 'temperature'
+  | 'length'
+  | 'voltage'
+  | 'current'
+  | 'hallCoefficient'
+  | 'temperatureCoefficient';
+
+/** How each dimension is named to people, its canonical unit, and a typed example. */
+export const DIMENSIONS: Readonly<
+  Record<Dimension, { readonly name: string; readonly canonical: string; readonly example: string }>
+> = {
+  resistivity: { name: 'a resistivity', canonical: 'Ω·cm', example: '8.2 ohm-cm' },
+  sheetResistance: { name: 'a sheet resistance', canonical: 'Ω/□', example: '45 ohm/sq' },
+  density: { name: 'a dopant density', canonical: 'cm⁻³', example: '2e15 cm-3' },
+  temperature: { name: 'a temperature', canonical: 'K', example: '27C or 300K' },
+  length: { name: 'a length', canonical: 'cm', example: '525um' },
+  voltage: { name: 'a voltage', canonical: 'V', example: '-1.2mV' },
+  current: { name: 'a current', canonical: 'A', example: '1mA' },
+  hallCoefficient: { name: 'a Hall coefficient', canonical: 'cm³/C', example: '-1.3e3 cm3/C' },
+  temperatureCoefficient: { name: 'a temperature coefficient', canonical: '%/K', example: '0.75%/K' },
+};
+
+export interface Quantity {
+  readonly dimension: Dimension;
+  /** Value in the canonical unit of its dimension (temperature coefficient as a fraction per K). */
+  readonly value: number;
+  /** The unit as the person typed it, normalised for display. */
+  readonly unitAsTyped: string;
+  /** The whole text the person typed for it. */
+  readonly raw: string;
+}
+
+const SUPERSCRIPTS: Record<string, string> = {
+  '⁰': '0', '¹': '1', '²': '2', '³': '3', '⁴': '4', '⁵': '5', '⁶': '6', '⁷': '7', '⁸': '8', '⁹': '9',
+  '⁻': '-', '⁺': '+',
+};
+
+/** Normalise a number's text: 1.5x10^15, 1.5×10¹⁵, 1.5*10^15, 1.5E15, −3 → 1.5e15, -3. */
+export function normaliseNumberText(text: string): string {
+  return text
+    .replace(/[⁰¹²³⁴⁵⁶⁷⁸⁹⁻⁺]+/g, (m) => '^' + [...m].map((c) => SUPERSCRIPTS[c]).join(''))
+    .replace(/[−–]/g, '-')
+    .replace(/\s*[x×*·]\s*10\s*\^\s*\(?([+-]?\d+)\)?/gi, 'e$1')
+    .replace(/^10\^\(?([+-]?\d+)\)?/, '1e$1');
+}
+
+const NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:e[+-]?\d+)?/i;
+
+/** Split "8.2ohm-cm", "-1.2mV", "1.5×10¹⁵cm⁻³" into number text and unit text. */
+export function splitNumber(text: string): { number: number; numberText: string; rest: string } | undefined {
+  const norm = normaliseNumberText(text.trim());
+  const m = NUMBER.exec(norm);
+  if (!m) return undefined;
+  const value = Number(m[0]);
+  return { number: value, numberText: m[0], rest: norm.slice(m[0].length).trim() };
+}
+
+interface UnitReading {
+  readonly dimension: Dimension;
+  /** Multiply the typed number by this (or apply `convert`) to get the canonical value. */
+  readonly convert: (n: number) => number;
+  readonly display: string;
+}
+
+/** Unit text → mathjs unit text, or a special reading (sheet, %/K, temperature words). */
+function normaliseUnitText(text: string): string {
+  return text
+    .replace(/[µμ]/g, 'u')
+    .replace(/Ω/g, 'ohm')
+    .replace(/\bohms\b/gi, 'ohm')
+    .replace(/[⁰¹²³⁴⁵⁶⁷⁸⁹⁻⁺]+/g, (m) => '^' + [...m].map((c) => SUPERSCRIPTS[c]).join(''))
+    .replace(/[−–]/g, '-')
+    .replace(/ohm\s*[-·.*⋅]\s*/gi, 'ohm ')
+    .replace(/ohm(?=[a-z])/gi, 'ohm ')
+    .trim();
+}
+
+const SHEET = /^(?:m|k)?ohm\s*(?:\/\s*(?:sq|square|□|sqr)|per\s+(?:sq|square)|_?sq)$/i;
+const DENSITY = /^(?:(?:atoms?|carriers?)\s*)?(?:\/\s*cm\^?3|per\s+cm\^?3|cm\s*\^?\s*-\s*3|cm\^-3)$/i;
+const TC = /^(%|ppm)\s*(?:\/|per\s+)\s*(?:K|degC|°C|C)$/i;
+const PER_K = /^(?:1\s*)?\/\s*K$/i;
+const TEMPERATURE_WORDS: Record<string, string> = {
+  c: 'degC', '°c': 'degC', degc: 'degC', 'deg c': 'degC', celsius: 'degC',
+  k: 'K', kelvin: 'K', f: 'degF', '°f': 'degF', degf: 'degF',
+};
+
+function readUnit(unitText: string, expected?: Dimension): UnitReading | { error: string } {
+  const u = normaliseUnitText(unitText);
+  const sheet = SHEET.exec(u);
+  if (sheet) {
+    const scale = /^m/i.test(u) ? 1e-3 : /^k/i.test(u) ? 1e3 : 1;
+    return { dimension: 'sheetResistance', convert: (n) => n * scale, display: u.replace(/\s+/g, '') };
+  }
+  if (DENSITY.test(u)) return { dimension: 'density', convert: (n) => n, display: 'cm⁻³' };
+  const tc = TC.exec(u);
+  if (tc) {
+    const scale = tc[1] === '%' ? 1e-2 : 1e-6;
+    return { dimension: 'temperatureCoefficient', convert: (n) => n * scale, display: `${tc[1]}/K` };
+  }
+  if (PER_K.test(u)) return { dimension: 'temperatureCoefficient', convert: (n) => n, display: '1/K' };
+  const tempWord = TEMPERATURE_WORDS[u.toLowerCase()];
+  // A bare "C" is a temperature only where one is expected (otherwise it would be coulombs).
+  if (tempWord && (u.toLowerCase() !== 'c' || expected === 'temperature' || expected === undefined)) {
+    return {
+      dimension: 'temperature',
+      convert: (n) => mathUnit(n, tempWord).toNumber('K'),
+      display: tempWord === 'degC' ? '°C' : tempWord === 'degF' ? '°F' : 'K',
+    };
+  }
+  let parsed: Unit;
+  try {
+    parsed = mathUnit(`1 ${u.replace(/\bcm(\d)\b/g, 'cm^$1').replace(/\bm(\d)\b/g, 'm^$1')}`);
+  } catch {
+    return { error: `I don't know the unit "${unitText}"` };
+  }
+  for (const [dimension, canonical] of CANONICAL_MATHJS) {
+    if (parsed.equalBase(mathUnit(canonical))) {
+      return {
+        dimension,
+        convert: (n) => mathUnit(n, u.replace(/\bcm(\d)\b/g, 'cm^$1').replace(/\bm(\d)\b/g, 'm^$1')).toNumber(canonical),
+        display: u,
+      };
+    }
+  }
+  return { error: `"${unitText}" is not a unit I can use here` };
+}
+
+const CANONICAL_MATHJS: readonly (readonly [Dimension, string])[] = [
+  ['resistivity', 'ohm cm'],
+  ['density', 'cm^-3'],
+  ['length', 'cm'],
+  ['voltage', 'V'],
+  ['current', 'A'],
+  ['hallCoefficient', 'cm^3/C'],
+];
+
+export type QuantityParse =
+  | { ok: true; quantity: Quantity }
+  | { ok: false; reason: 'not_a_number' | 'unknown_unit' | 'not_finite'; message: string };
+
+/**
+ * Parse "8.2 ohm-cm", "1.5x10^15 cm^-3", "27C". A number with no unit takes `defaultDimension`
+ * (the caller says so in the reply's assumptions).
+ */
+export function parseQuantity(text: string, expected?: Dimension): QuantityParse {
+  const split = splitNumber(text);
+  if (!split) return { ok: false, reason: 'not_a_number', message: `"${text}" is not a number` };
+  if (!Number.isFinite(split.number)) {
+    return { ok: false, reason: 'not_finite', message: `"${text}" is too large to be a measured value` };
+  }
+  if (split.rest === '') {
+    if (!expected) return { ok: false, reason: 'unknown_unit', message: `"${text}" needs a unit` };
+    return {
+      ok: true,
+      quantity: { dimension: expected, value: defaultUnitValue(expected, split.number), unitAsTyped: '', raw: text },
+    };
+  }
+  const reading = readUnit(split.rest, expected);
+  if ('error' in reading) return { ok: false, reason: 'unknown_unit', message: reading.error };
+  const value = reading.convert(split.number);
+  if (!Number.isFinite(value)) {
+    return { ok: false, reason: 'not_finite', message: `"${text}" is too large to be a measured value` };
+  }
+  return { ok: true, quantity: { dimension: reading.dimension, value, unitAsTyped: reading.display, raw: text } };
+}
+
+/** A bare number takes the canonical unit of the expected dimension (temperature: K; coefficient: %/K). */
+function defaultUnitValue(dimension: Dimension, n: number): number {
+  return dimension === 'temperatureCoefficient' ? n / 100 : n;
+}
+
+/** Whether `text` (one or more words) reads as a unit at all: used by the tokenizer to glue units to numbers. */
+export function looksLikeUnit(text: string): boolean {
+  const r = readUnit(text);
+  return !('error' in r);
+}

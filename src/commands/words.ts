@@ -1,0 +1,52 @@
+/** Trade words people type, mapped to the core's vocabulary. Case-sensitive first: "P" is phosphorus, "p" is p-type. */
+import type { CarrierType, Dopant, Material } from '../physics/types.js';
+
+export const DOPANT_WORDS: Readonly<Record<string, Dopant>> = {
+  p: 'boron',
+  'p-type': 'boron',
+  ptype: 'boron',
+  n: 'phosphorus',
+  'n-type': 'phosphorus',
+  ntype: 'phosphorus',
+  boron: 'boron',
+  B: 'boron',
+  phosphorus: 'phosphorus',
+  phos: 'phosphorus',
+  P: 'phosphorus',
+  arsenic: 'arsenic',
+  As: 'arsenic',
+  antimony: 'antimony',
+  Sb: 'antimony',
+};
+
+/** Whether the word named only a type (then the dopant is the default for that type). */
+export const TYPE_ONLY_WORDS = new Set(['p', 'p-type', 'ptype', 'n', 'n-type', 'ntype']);
+
+export const MATERIAL_WORDS: Readonly<Record<string, Material>> = {
+  Si: 'Si',
+  silicon: 'Si',
+  Ge: 'Ge',
+  germanium: 'Ge',
+  GaAs: 'GaAs',
+  'gallium-arsenide': 'GaAs',
+};
+
+export const CARRIER_TYPE_WORDS: Readonly<Record<string, CarrierType>> = {
+  n: 'n',
+  'n-type': 'n',
+  p: 'p',
+  'p-type': 'p',
+};
+
+export const DOPANT_LABEL: Readonly<Record<Dopant, string>> = {
+  boron: 'boron (p-type)',
+  phosphorus: 'phosphorus (n-type)',
+  arsenic: 'arsenic (n-type)',
+  antimony: 'antimony (n-type)',
+};
+
+export const MATERIAL_LABEL: Readonly<Record<Material, string>> = {
+  Si: 'silicon',
+  Ge: 'germanium',
+  GaAs: 'gallium arsenide',
+};
