@@ -1,0 +1,90 @@
+/**
+ * Entry point behind `npx shiftprobe` and `npm start`:
+ *   shiftprobe "<command>"          one reply as text (exit 2 on bad input)
+ *   shiftprobe --json "<command>"   one reply as a JSON object (the contract in README.md)
+ *   shiftprobe --serve              Slack when configured, otherwise the local console
+ *   shiftprobe                      (no command) the local console
+ */
+import { dirname, join } from 'node:path';
+import { contextFor, openServices } from './app.js';
+import { runConsole } from './adapters/console/console.js';
+import { handle } from './commands/handle.js';
+import { describeConfigProblems, loadConfig, readEnvironment, surfaceOf, type Config } from './config.js';
+import { renderJson } from './render/json.js';
+import { renderText } from './render/text.js';
+
+export interface MainIo {
+  readonly stdout: NodeJS.WritableStream & { isTTY?: boolean; columns?: number };
+  readonly stderr: NodeJS.WritableStream;
+  readonly stdin: NodeJS.ReadableStream;
+  readonly env: Readonly<Record<string, string | undefined>>;
+}
+
+const USAGE = [
+  'usage: shiftprobe [--json] "<command>"   one answer, e.g. shiftprobe "rho 8.2 ohm-cm p"',
+  '       shiftprobe                       the local console (or Slack, when configured)',
+].join('\n');
+
+export async function main(argv: readonly string[], io: MainIo = process as unknown as MainIo): Promise<number> {
+  const json = argv.includes('--json');
+  const serve = argv.includes('--serve');
+  if (argv.includes('--help') || argv.includes('-h')) {
+    io.stdout.write(USAGE + '\n');
+    return 0;
+  }
+  const unknownFlag = argv.find((a) => a.startsWith('--') && a !== '--json' && a !== '--serve');
+  if (unknownFlag) {
+    io.stderr.write(`shiftprobe: unknown option ${unknownFlag}\n${USAGE}\n`);
+    return 2;
+  }
+  const text = argv.filter((a) => a !== '--json' && a !== '--serve').join(' ');
+  const loaded = loadConfig(readEnvironment({ env: io.env }));
+  if (!loaded.ok) {
+    io.stderr.write(describeConfigProblems(loaded.problems) + '\n');
+    return 78; // configuration error (EX_CONFIG)
+  }
+  const config = loaded.config;
+  if (text.trim() !== '' && !serve) return oneShot(text, json, config, io);
+  if (surfaceOf(config) === 'slack') return startSlackSurface(config, io);
+  return startConsole(config, io);
+}
+
+async function oneShot(text: string, json: boolean, config: Config, io: MainIo): Promise<number> {
+  const services = openServices(config.base.databasePath);
+  try {
+    const ctx = contextFor(services, 'cli', { userId: 'cli', channelId: 'cli' }, {});
+    const reply = await handle(text, ctx);
+    io.stdout.write((json ? renderJson(reply) : renderText(reply, { width: io.stdout.columns ?? 88 })) + '\n');
+    return reply.ok ? 0 : 2;
+  } finally {
+    services.close();
+  }
+}
+
+async function startConsole(config: Config, io: MainIo): Promise<number> {
+  const services = openServices(config.base.databasePath);
+  try {
+    const ctx = contextFor(services, 'console', { userId: 'console', displayName: 'console user', channelId: 'console' }, {});
+    await runConsole({
+      input: io.stdin as unknown as import('node:stream').Readable,
+      output: io.stdout as unknown as import('node:stream').Writable,
+      context: ctx,
+      historyPath: join(dirname(config.base.databasePath), 'console-history'),
+    });
+    return 0;
+  } finally {
+    services.close();
+  }
+}
+
+async function startSlackSurface(config: Config, io: MainIo): Promise<number> {
+  // The Slack adapter is loaded only when configured, so the console needs none of it.
+  const slack = (await import('./adapters/slack/index.js').catch(() => undefined)) as
+    | { startSlack(config: Config, deps: { io: MainIo }): Promise<number> }
+    | undefined;
+  if (!slack) {
+    io.stderr.write('shiftprobe: Slack settings are present but the Slack adapter is not available in this build.\n');
+    return 78;
+  }
+  return slack.startSlack(config, { io });
+}
