@@ -20,7 +20,15 @@ export type Refusal =
   /** A geometry for which a correction factor does not exist (e.g. d/s ≤ √3 for Smits's C). */
   | { code: 'geometry_invalid'; factor: string; ratio: number; min: number }
   /** A request that lacks the inputs the computation needs (e.g. neither V and I nor Rs). */
-  | { code: 'missing_input'; quantity: string; needs: string[] };
+  | { code: 'missing_input'; quantity: string; needs: string[] }
+  /** Issue 5: the computation has no parameters for this material (e.g. ionization in GaAs). */
+  | { code: 'not_covered'; quantity: string; material: Material; covered: Material[] }
+  /** Issue 5: a diffused layer needs Cs above the background density, or there is no junction. */
+  | { code: 'no_junction'; surfaceConcentrationPerCm3: number; backgroundDensityPerCm3: number }
+  /** Issue 5: a diffused layer and its background must be of opposite kinds (n on p, p on n). */
+  | { code: 'dopant_pairing'; dopant: Dopant; background: Dopant }
+  /** Issue 5: a bracketed solver did not converge (never a silent NaN). */
+  | { code: 'no_solution'; quantity: string; model: string; status: string };
 
 export type RefusalCode = Refusal['code'];
 

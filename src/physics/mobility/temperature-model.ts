@@ -72,3 +72,29 @@ export function isTemperatureMobilityModel(m: MobilityModel): m is TemperatureMo
   const t = m as Partial<TemperatureMobilityModel>;
   return typeof t.electronMobilityCm2PerVs === 'function' && typeof t.holeMobilityCm2PerVs === 'function';
 }
+
+export interface MobilityPair {
+  readonly electronCm2PerVs: number;
+  readonly holeCm2PerVs: number;
+}
+
+/**
+ * Electron and hole mobility from any registered model at the given conditions. A model with
+ * the full interface gets the conditions as they are; a majority-carrier, fixed-temperature
+ * model (Masetti, Caughey–Thomas) is asked at the total ionized impurity density N_D + N_A,
+ * with the named donor (phosphorus if none, or if the model has no set for it) for electrons and boron for holes — the usual
+ * way such curves are applied to compensated material and to minority carriers, and stated
+ * as an assumption by the callers.
+ */
+export function mobilityPair(model: MobilityModel, c: MobilityConditions): MobilityPair {
+  if (isTemperatureMobilityModel(model)) {
+    return { electronCm2PerVs: model.electronMobilityCm2PerVs(c), holeCm2PerVs: model.holeMobilityCm2PerVs(c) };
+  }
+  const total = c.donorDensityPerCm3 + c.acceptorDensityPerCm3;
+  // A donor the model has no set for (Masetti has none for Sb) takes the phosphorus set.
+  const donor: Dopant = c.donor !== undefined && model.dopants.includes(c.donor) ? c.donor : 'phosphorus';
+  return {
+    electronCm2PerVs: model.mobilityCm2PerVs(total, donor, c.temperatureK),
+    holeCm2PerVs: model.mobilityCm2PerVs(total, 'boron', c.temperatureK),
+  };
+}
