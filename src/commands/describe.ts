@@ -44,6 +44,18 @@ export function parameterRows(params: readonly Parameter[]): { name: string; val
   return params.map((p) => ({ name: p.name, value: p.value, ...(p.unit ? { unit: p.unit } : {}), ...(p.source ? { source: p.source } : {}) }));
 }
 
+const QUANTITY_UNITS: Record<string, string> = {
+  resistivityOhmCm: 'Ω·cm',
+  dopantDensityPerCm3: 'cm⁻³',
+  temperatureK: 'K',
+  sheetResistanceOhmPerSq: 'Ω/□',
+};
+
+function describeInput(quantity: string, value: number): string {
+  const unit = QUANTITY_UNITS[quantity];
+  return unit ? `${formatNumber(value)} ${unit}` : formatNumber(value);
+}
+
 export function capital(s: string): string {
   return s.charAt(0).toUpperCase() + s.slice(1);
 }
@@ -65,6 +77,12 @@ export function refusalMessage(r: Refusal): string {
       return `The ${r.model} model does not cover ${r.dopant}; it covers ${r.supported.join(', ')}.`;
     case 'model_material':
       return `The ${r.model} model does not cover ${MATERIAL_LABEL[r.material]}; it covers ${r.supported.map((m) => MATERIAL_LABEL[m]).join(', ')}.`;
+    case 'outside_domain':
+      return `${describeInput(r.quantity, r.input)} is too far outside the ${r.model} model's range (${describeInput(r.quantity, r.min)} to ${describeInput(r.quantity, r.max)}) to extrapolate honestly. Check the reading and its unit.`;
+    case 'geometry_invalid':
+      return `The ${r.factor} correction does not exist for a ratio of ${formatNumber(r.ratio)} (it needs more than ${formatNumber(r.min)}); check the probe spacing and the wafer size.`;
+    case 'missing_input':
+      return `The ${r.quantity} needs ${r.needs.join(' and ')}.`;
     default: {
       const any = r as unknown as Record<string, unknown>;
       return typeof any['message'] === 'string' ? any['message'] : `The request was refused (${String(any['code'])}).`;

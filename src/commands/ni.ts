@@ -69,7 +69,7 @@ export const niCommand = defineCommand<NiRequest>({
         { key: 'intrinsicDensityPerCm3', value: r.intrinsicDensityPerCm3, unit: 'cm⁻³', label: 'Intrinsic carrier density n_i', headline: true },
         { key: 'bandgapEv', value: r.bandgapEv, unit: 'eV', label: 'Band gap Eg(T)', sigFigs: 4 },
         { key: 'massActionProductPerCm6', value: r.massActionProductPerCm6, unit: 'cm⁻⁶', label: 'n·p = n_i²' },
-        { key: 'temperatureK', value: r.temperatureK, unit: 'K', label: 'Temperature', sigFigs: 5 },
+        { key: 'temperatureK', value: r.temperatureK, unit: 'K', label: 'Temperature', sigFigs: Number.isInteger(r.temperatureK) ? 3 : 5 },
         { key: 'conductionBandDensityPerCm3', value: r.conductionBandDensityPerCm3, unit: 'cm⁻³', label: 'Nc(T)' },
         { key: 'valenceBandDensityPerCm3', value: r.valenceBandDensityPerCm3, unit: 'cm⁻³', label: 'Nv(T)' },
       ],

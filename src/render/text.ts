@@ -15,8 +15,11 @@ export function valueText(v: ReplyValue): string {
   return v.unit ? `${n} ${v.unit}` : n;
 }
 
+/** Wrap at word boundaries; continuation lines hang under the text after a leading marker ("• ", "! "). */
 function wrap(text: string, width: number, indent: string): string {
   if (width <= 0 || text.length + indent.length <= width) return indent + text;
+  const marker = /^(?:[•!⚠✗] )/.exec(text)?.[0] ?? '';
+  const hang = indent + ' '.repeat(marker.length);
   const words = text.split(' ');
   const lines: string[] = [];
   let line = '';
@@ -27,7 +30,7 @@ function wrap(text: string, width: number, indent: string): string {
     } else line = line ? `${line} ${w}` : w;
   }
   if (line) lines.push(line);
-  return lines.map((l) => indent + l).join('\n');
+  return lines.map((l, i) => (i === 0 ? indent : hang) + l).join('\n');
 }
 
 function table(columns: readonly string[], rows: readonly (readonly string[])[], indent: string): string[] {

@@ -13,6 +13,7 @@ const QUANTITY_WORDS: Record<string, { name: string; unit: string }> = {
   sheetResistanceOhmPerSq: { name: 'sheet resistance', unit: 'Ω/□' },
   thicknessOverSpacing: { name: 'thickness/spacing', unit: '' },
   diameterOverSpacing: { name: 'diameter/spacing', unit: '' },
+  intrinsicDensityPerCm3: { name: 'intrinsic density n_i of silicon at 300 K', unit: 'cm⁻³' },
 };
 
 function q(quantity: string, value: number): string {
@@ -46,7 +47,7 @@ export function problemMessage(p: Problem): string {
     case 'mixed_conduction':
       return `In near-intrinsic or compensated material both carriers conduct and the ${p.method} sign can flip; confirm with a second method.`;
     case 'outdated_value':
-      return `The often-quoted ${formatNumber(p.outdated)} cm⁻³ for ${p.quantity} is outdated; the current value is ${formatNumber(p.current)} cm⁻³ (${p.source}).`;
+      return `The often-quoted ${formatNumber(p.outdated)} cm⁻³ for the ${nameOf(p.quantity)} is outdated; the current value is ${formatNumber(p.current)} cm⁻³ (${p.source}).`;
     case 'geometry_limit':
       return `The ${p.factor} correction is outside its useful range (ratio ${formatNumber(p.ratio)}, needs at least ${formatNumber(p.min)}).`;
     case 'other':
@@ -88,6 +89,7 @@ const ASSUMPTIONS: Record<string, string> = {
   centred_probe: 'Probe centred on the wafer.',
   insulating_base: 'Layer on an insulating (or junction-isolated) base.',
   collinear_equal_spacing: 'Collinear four-point probe with equal pin spacing.',
+  majority_carriers_only: 'Conduction by majority carriers only (minority density negligible).',
 };
 
 export function assumptionText(code: string): string {
