@@ -9,3 +9,5 @@ export * from './numeric/index.js';
 export * from './mobility/index.js';
 export * from './resistivity/index.js';
 export * from './intrinsic/index.js';
+export * from './type/index.js';
+export * from './four-point/index.js';

@@ -21,6 +21,18 @@ export type Problem =
   | { code: 'mixed_conduction'; method: string }
   | { code: 'outdated_value'; quantity: string; outdated: number; current: number; source: string }
   | { code: 'geometry_limit'; factor: string; ratio: number; min: number }
+  /** The method is not covered by the standard for this material (e.g. rectification on Ge). */
+  | { code: 'method_not_covered'; method: string; material: string; standard: string }
+  /** Issue 5: the simple ionization model overstates freeze-out above about this density. */
+  | { code: 'ionization_model_limit'; dopantDensityPerCm3: number; limitPerCm3: number }
+  /** Issue 5: E_F within `limitKT` kT of a band edge: Boltzmann statistics no longer hold. */
+  | { code: 'degenerate'; band: 'conduction' | 'valence'; separationKT: number; limitKT: number }
+  /** Issue 5: a parameter recalled from memory, not confirmed against its source. */
+  | { code: 'unverified_parameter'; parameter: string; value: number; unit: string; source: string }
+  /** Issue 5: n_i is comparable with the net doping: carriers are set by temperature, not doping. */
+  | { code: 'intrinsic_regime'; intrinsicDensityPerCm3: number; netDopingPerCm3: number }
+  /** Issue 5: a quantity the core computes for some materials only (e.g. resistivity: Si only). */
+  | { code: 'quantity_not_covered'; quantity: string; material: string; covered: readonly string[] }
   | { code: 'other'; message: string };
 
 export type ProblemCode = Problem['code'];
