@@ -1,0 +1,145 @@
+/**
+ * Lot readings: the typed request a `record` becomes, and the stored, append-only row.
+ * Values arrive in canonical units (parsed once, in src/commands) with the text as entered.
+ */
+import { z } from 'zod';
+import { SITE_MAX, SITE_MIN, WAFER_MAX, WAFER_MIN } from './ids.js';
+import type { ReadingEvaluation } from './evaluation.js';
+
+/** Sanity bounds: a value outside them is a typing or unit slip, not a silicon reading. */
+export const LIMITS = {
+  /** Ω·cm. Intrinsic Si at room temperature is about 2.3e5 Ω·cm (common practice, no source). */
+  resistivityOhmCm: { min: 1e-5, max: 1e6 },
+  /** Ω/□. */
+  sheetResistanceOhmPerSq: { min: 1e-4, max: 1e9 },
+  /** cm: 0.1 µm layers to 5 mm slugs. */
+  thicknessCm: { min: 1e-5, max: 0.5 },
+  /** cm: probe pin spacing 0.1–5 mm. */
+  spacingCm: { min: 0.01, max: 0.5 },
+  /** K: a probe reading is taken between about −20 °C and 120 °C. */
+  temperatureK: { min: 253.15, max: 393.15 },
+} as const;
+
+const within = (name: keyof typeof LIMITS) =>
+  z
+    .number()
+    .finite()
+    .refine((v) => v > 0, { message: `${name} must be positive` })
+    .refine((v) => v >= LIMITS[name].min && v <= LIMITS[name].max, {
+      message: `${name} outside ${LIMITS[name].min}–${LIMITS[name].max}`,
+    });
+
+export const ResistivityMeasurement = z.object({
+  kind: z.literal('resistivity'),
+  resistivityOhmCm: within('resistivityOhmCm'),
+  asEntered: z.string().max(80),
+});
+
+export const SheetMeasurement = z.object({
+  kind: z.literal('sheet'),
+  sheetResistanceOhmPerSq: within('sheetResistanceOhmPerSq'),
+  thicknessCm: within('thicknessCm'),
+  spacingCm: within('spacingCm').optional(),
+  asEntered: z.string().max(120),
+});
+
+export const TYPE_METHODS = ['hot', 'cold', 'hall', 'point', 'spv'] as const;
+
+export const ProbeTypeMeasurement = z.object({
+  kind: z.literal('type'),
+  method: z.enum(TYPE_METHODS),
+  /** V (hot, cold, spv), cm³/C (hall), ±1 (point: polarity of the point at easy conduction). */
+  reading: z.number().finite(),
+  asEntered: z.string().max(80),
+});
+
+/** The operator states the type found by a separate test ("type p"). */
+export const StatedTypeMeasurement = z.object({
+  kind: z.literal('stated-type'),
+  carrierType: z.enum(['n', 'p']),
+  asEntered: z.string().max(80),
+});
+
+export const PrimaryMeasurement = z.discriminatedUnion('kind', [ResistivityMeasurement, SheetMeasurement]);
+export type PrimaryMeasurement = z.infer<typeof PrimaryMeasurement>;
+export const TypeMeasurement = z.discriminatedUnion('kind', [ProbeTypeMeasurement, StatedTypeMeasurement]);
+export type TypeMeasurement = z.infer<typeof TypeMeasurement>;
+
+export const RecordRequest = z
+  .object({
+    lotId: z.string().min(1).max(64),
+    wafer: z.number().int().min(WAFER_MIN).max(WAFER_MAX).optional(),
+    site: z.number().int().min(SITE_MIN).max(SITE_MAX).optional(),
+    /** A resistivity or a sheet resistance with thickness. */
+    primary: PrimaryMeasurement.optional(),
+    /** A conductivity-type reading. */
+    typeReading: TypeMeasurement.optional(),
+    temperatureK: within('temperatureK').optional(),
+    temperatureAsEntered: z.string().max(40).optional(),
+    /** Names (or re-names) the lot's product. */
+    productId: z.string().min(1).max(32).optional(),
+    /** Id of an earlier reading this one corrects. */
+    corrects: z.number().int().positive().optional(),
+    note: z.string().max(500).optional(),
+  })
+  .strict()
+  .refine((r) => r.site === undefined || r.wafer !== undefined, {
+    message: 'a site needs its wafer (e.g. w3 site 2)',
+    path: ['site'],
+  })
+  .refine((r) => r.primary !== undefined || r.typeReading !== undefined || r.productId !== undefined, {
+    message: 'nothing to record: give a reading (rho, sheet or type) or a product',
+  })
+  .refine((r) => r.corrects === undefined || r.primary !== undefined || r.typeReading !== undefined, {
+    message: 'a correction needs the corrected reading',
+    path: ['corrects'],
+  });
+export type RecordRequest = z.infer<typeof RecordRequest>;
+
+export type Quantity = 'resistivity' | 'sheet' | 'type';
+
+/** Who caused a write, and from where. */
+export interface Actor {
+  readonly userId: string;
+  readonly userName?: string;
+  readonly surface: string;
+  readonly channelId: string;
+}
+
+/** One stored reading. Never updated: a correction is a new reading that `supersedes` this one. */
+export interface StoredReading {
+  readonly id: number;
+  readonly lotId: string;
+  readonly wafer?: number;
+  readonly site?: number;
+  readonly quantity: Quantity;
+  /** The text as entered ('8.4 ohm-cm', '45 ohm/sq thick 525um', 'hot -1.2mV'). */
+  readonly asEntered: string;
+  /** Canonical value: Ω·cm, Ω/□, or V / cm³/C / ±1 for type readings (0 for a stated type). */
+  readonly value: number;
+  readonly unit: string;
+  readonly thicknessCm?: number;
+  readonly spacingCm?: number;
+  readonly typeMethod?: string;
+  /** Resistivity used for the checks (as read, or from sheet × thickness). */
+  readonly resistivityOhmCm?: number;
+  readonly dopantDensityPerCm3?: number;
+  readonly carrierType?: 'n' | 'p' | 'indeterminate';
+  readonly temperatureK?: number;
+  readonly verdict: Verdict;
+  readonly evaluation: ReadingEvaluation;
+  readonly supersedes?: number;
+  /** Filled when read back: the reading that corrected this one. */
+  readonly supersededBy?: number;
+  readonly actor: Actor;
+  readonly eventId: string;
+  readonly recordedAt: string;
+  readonly note?: string;
+}
+
+export type Verdict = 'pass' | 'flagged' | 'no_verdict';
+
+/** The readings that count: not corrected by a later one. */
+export function currentReadings(readings: readonly StoredReading[]): StoredReading[] {
+  return readings.filter((r) => r.supersededBy === undefined);
+}
