@@ -11,3 +11,5 @@ export * from './resistivity/index.js';
 export * from './intrinsic/index.js';
 export * from './type/index.js';
 export * from './four-point/index.js';
+export * from './carriers/index.js';
+export * from './layer/index.js';

@@ -6,3 +6,6 @@ export * from './masetti-1983.js';
 export * from './caughey-thomas-1967.js';
 export * from './registry.js';
 export * from './convert.js';
+export * from './temperature-models.js';
+export * from './resistivity-at-temperature.js';
+export * from './temperature-correction.js';

@@ -12,6 +12,7 @@ import { caugheyThomas1967Conversion } from './caughey-thomas-1967.js';
 import type { RegisteredConversionModel } from './conversion-model.js';
 import { f723PhosphorusForArsenicAntimony, F723_AS_SB_DENSITY_LIMIT_PER_CM3 } from './f723-phosphorus-for-as-sb.js';
 import { masetti1983Conversion, masettiArsenicForAntimony } from './masetti-1983.js';
+import { arora1982Conversion, klaassen1992Conversion } from './temperature-models.js';
 
 export const CONVERSION_MODELS: readonly RegisteredConversionModel[] = [
   f723,
@@ -19,6 +20,8 @@ export const CONVERSION_MODELS: readonly RegisteredConversionModel[] = [
   caugheyThomas1967Conversion,
   f723PhosphorusForArsenicAntimony,
   masettiArsenicForAntimony,
+  klaassen1992Conversion,
+  arora1982Conversion,
 ];
 
 function normalise(s: string): string {

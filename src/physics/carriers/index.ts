@@ -1,0 +1,4 @@
+export * from './ionization-energies.js';
+export * from './neutrality.js';
+export * from './carriers.js';
+export * from './crossover.js';

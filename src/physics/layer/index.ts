@@ -1,0 +1,2 @@
+export * from './profiles.js';
+export * from './irvin-1962.js';
