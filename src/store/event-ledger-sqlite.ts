@@ -31,6 +31,7 @@ export class SqliteEventLedger implements EventLedger {
   private readonly claimStmt;
   private readonly completeStmt;
   private readonly pruneStmt;
+  private readonly releaseStmt;
   private readonly leaseMs: number;
   private readonly retentionMs: number;
   private claims = 0;
@@ -51,6 +52,7 @@ export class SqliteEventLedger implements EventLedger {
       `UPDATE chat_events SET state = 'done', done_ms = @now WHERE event_key = @key`,
     );
     this.pruneStmt = db.prepare('DELETE FROM chat_events WHERE claimed_ms < ?');
+    this.releaseStmt = db.prepare(`DELETE FROM chat_events WHERE event_key = ? AND state = 'claimed'`);
   }
 
   async claim(key: string): Promise<boolean> {
@@ -63,5 +65,9 @@ export class SqliteEventLedger implements EventLedger {
 
   async complete(key: string): Promise<void> {
     this.completeStmt.run({ key, now: this.options.now().getTime() });
+  }
+
+  async release(key: string): Promise<void> {
+    this.releaseStmt.run(key);
   }
 }

@@ -13,6 +13,8 @@ export interface EventLedger {
   claim(key: string): Promise<boolean>;
   /** The event has been answered; it will never be claimed again. */
   complete(key: string): Promise<void>;
+  /** The work failed before any side effect: forget the claim so the next attempt may do it. */
+  release(key: string): Promise<void>;
 }
 
 export interface LedgerOptions {
@@ -50,5 +52,8 @@ export class MemoryEventLedger implements EventLedger {
   async complete(key: string): Promise<void> {
     const entry = this.entries.get(key);
     if (entry) entry.done = true;
+  }
+  async release(key: string): Promise<void> {
+    if (this.entries.get(key)?.done === false) this.entries.delete(key);
   }
 }

@@ -98,3 +98,15 @@ describe('SqliteEventLedger across processes', () => {
     expect(new Set(wins).size).toBe(150);
   });
 });
+
+describe.each(kinds)('%s event ledger release', (_name, make) => {
+  it('a released claim can be taken again at once, a completed one cannot be released', async () => {
+    const ledger = make(manualClock().now);
+    expect(await ledger.claim('share:r-000001:C1:-')).toBe(true);
+    await ledger.release('share:r-000001:C1:-');
+    expect(await ledger.claim('share:r-000001:C1:-')).toBe(true);
+    await ledger.complete('share:r-000001:C1:-');
+    await ledger.release('share:r-000001:C1:-');
+    expect(await ledger.claim('share:r-000001:C1:-')).toBe(false);
+  });
+});

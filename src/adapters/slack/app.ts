@@ -1,0 +1,176 @@
+/**
+ * The Slack app factory: the receiver chosen by configuration (HTTP with signed requests at
+ * /slack/events, or Socket Mode), the Web API base URL (`clientOptions.slackApiUrl`, for a
+ * local fake or a proxy), the listeners grouped by kind, the global error handler, and
+ * /healthz + /readyz on the HTTP port in both modes.
+ */
+import type { AddressInfo } from 'node:net';
+import type { Server } from 'node:http';
+import { App, HTTPReceiver, SocketModeReceiver, webApi, type Logger } from '@slack/bolt';
+import type { SlackConfig } from '../../config.js';
+import type { SlackDeps } from './deps.js';
+import { installErrorHandler } from './errors.js';
+import { healthRoutes, healthServer, Readiness } from './health.js';
+import { registerActions } from './listeners/actions.js';
+import { registerCommands } from './listeners/commands.js';
+import { registerEvents } from './listeners/events.js';
+import { slackErrorCode } from './slack-errors.js';
+
+export interface SlackAppOptions {
+  readonly slack: SlackConfig;
+  /** HTTP port (events in HTTP mode, health in both); 0 picks a free port. */
+  readonly port: number;
+  readonly host?: string | undefined;
+  readonly deps: SlackDeps;
+}
+
+export interface SlackRuntime {
+  readonly app: App;
+  readonly readiness: Readiness;
+  /** Listens, checks the bot token with Slack, connects (Socket Mode); resolves with the HTTP port. */
+  start(): Promise<{ port: number }>;
+  stop(): Promise<void>;
+}
+
+/** Start-up failed for a reason the operator must fix; names the variable, never its value. */
+export class SlackStartError extends Error {
+  constructor(
+    readonly variable: string,
+    message: string,
+  ) {
+    super(message);
+    this.name = 'SlackStartError';
+  }
+}
+
+/** Answers from auth.test that no retry will change. */
+const REJECTED = new Set(['invalid_auth', 'not_authed', 'account_inactive', 'token_revoked', 'token_expired', 'not_allowed_token_type']);
+
+interface BotIdentity {
+  readonly botUserId: string;
+  readonly botId: string;
+  readonly teamId: string | undefined;
+}
+
+export function createSlackApp(options: SlackAppOptions): SlackRuntime {
+  const { slack, deps } = options;
+  const logger: Logger = deps.logger;
+  const botToken = slack.botToken.reveal();
+  const clientOptions: webApi.WebClientOptions = { logger, ...(slack.apiUrl ? { slackApiUrl: slack.apiUrl } : {}) };
+  const readiness = new Readiness(deps.storeHealthy);
+  const routes = healthRoutes(readiness);
+
+  // auth.test once (no client-side retries: start-up handles them), shared by every event.
+  const checker = new webApi.WebClient(botToken, { ...clientOptions, retryConfig: { retries: 0 } });
+  let identity: Promise<BotIdentity> | undefined;
+  const whoAmI = (): Promise<BotIdentity> => {
+    identity ??= checker.auth.test().then(
+      (r) => ({ botUserId: String(r.user_id), botId: String(r.bot_id), teamId: r.team_id }),
+      (error: unknown) => {
+        identity = undefined;
+        throw error;
+      },
+    );
+    return identity;
+  };
+
+  let health: Server | undefined;
+  const receiver =
+    slack.transport === 'http'
+      ? new HTTPReceiver({ signingSecret: slack.signingSecret.reveal(), endpoints: '/slack/events', customRoutes: routes, logger })
+      : new SocketModeReceiver({ appToken: slack.appToken.reveal(), logger, installerOptions: { clientOptions } });
+
+  const app = new App({
+    receiver,
+    logger,
+    clientOptions,
+    extendedErrorHandler: true,
+    authorize: async () => {
+      const me = await whoAmI();
+      return { botToken, botId: me.botId, botUserId: me.botUserId, ...(me.teamId ? { teamId: me.teamId } : {}) };
+    },
+  });
+  const listenerDeps = { ...deps, slashCommand: slack.slashCommand };
+  registerCommands(app, listenerDeps);
+  registerEvents(app, listenerDeps);
+  registerActions(app, listenerDeps);
+  installErrorHandler(app, deps, new webApi.WebClient(botToken, clientOptions));
+
+  if (receiver instanceof SocketModeReceiver) {
+    receiver.client.on('connected', () => (readiness.slack = 'connected'));
+    receiver.client.on('reconnecting', () => (readiness.slack = 'reconnecting'));
+    receiver.client.on('disconnected', () => {
+      if (readiness.slack !== 'stopped') readiness.slack = 'reconnecting';
+    });
+  }
+
+  let retry: NodeJS.Timeout | undefined;
+  const checkToken = async (): Promise<boolean> => {
+    try {
+      await whoAmI();
+      return true;
+    } catch (error) {
+      const code = slackErrorCode(error);
+      if (REJECTED.has(code)) {
+        readiness.slack = 'rejected';
+        throw new SlackStartError('SLACK_BOT_TOKEN', `Slack did not accept SLACK_BOT_TOKEN (${code}). Copy the Bot User OAuth Token (xoxb-…) from OAuth & Permissions again, or reinstall the app.`);
+      }
+      logger.warn(`Slack is not reachable yet (${code}); retrying.`);
+      return false;
+    }
+  };
+
+  return {
+    app,
+    readiness,
+    async start() {
+      let port: number;
+      if (receiver instanceof HTTPReceiver) {
+        const server = (await app.start({ port: options.port, ...(options.host ? { host: options.host } : {}) })) as Server;
+        port = (server.address() as AddressInfo).port;
+      } else {
+        health = healthServer(routes);
+        const server = health;
+        await new Promise<void>((resolve, reject) => {
+          server.once('error', reject);
+          server.listen({ port: options.port, ...(options.host ? { host: options.host } : {}) }, () => resolve());
+        });
+        port = (server.address() as AddressInfo).port;
+      }
+      try {
+        const ok = await checkToken();
+        if (receiver instanceof SocketModeReceiver) {
+          try {
+            await app.start();
+          } catch (error) {
+            const code = slackErrorCode(error);
+            throw new SlackStartError('SLACK_APP_TOKEN', `Slack did not open a Socket Mode connection (${code}). Check SLACK_APP_TOKEN (xapp-…, with the connections:write scope) and that Socket Mode is on.`);
+          }
+        }
+        if (receiver instanceof HTTPReceiver) {
+          if (ok) readiness.slack = 'connected';
+          else {
+            let delayMs = 1000;
+            const again = async (): Promise<void> => {
+              if (readiness.slack === 'stopped') return;
+              if (await checkToken().catch(() => false)) readiness.slack = 'connected';
+              else retry = setTimeout(() => void again(), (delayMs = Math.min(delayMs * 2, 60_000)));
+            };
+            retry = setTimeout(() => void again(), delayMs);
+          }
+        }
+      } catch (error) {
+        await this.stop().catch(() => undefined);
+        throw error;
+      }
+      return { port };
+    },
+    async stop() {
+      readiness.slack = 'stopped';
+      clearTimeout(retry);
+      await app.stop().catch(() => undefined);
+      if (health) await new Promise<void>((resolve) => health!.close(() => resolve()));
+      health = undefined;
+    },
+  };
+}

@@ -1,0 +1,50 @@
+/**
+ * One question from Slack to `handle`: who asked, where, under which event key, with the
+ * conversation's memory (the last result, for a bare `why`) loaded before and saved after.
+ */
+import { contextFor } from '../../app.js';
+import type { Reply } from '../../reply/reply.js';
+import type { SlackDeps } from './deps.js';
+
+export interface Where {
+  readonly teamId: string | undefined;
+  readonly userId: string;
+  readonly channelId: string;
+  /** Exactly-once key of the Slack event that carries the question; passed on as ctx.eventId. */
+  readonly eventKey: string;
+}
+
+/** Event keys: one per Slack event, the same on every retry and every instance. */
+export const eventKeys = {
+  command: (teamId: string | undefined, triggerId: string) => `slack:command:${teamId ?? '-'}:${triggerId}`,
+  /** Keyed by the message, so an app_mention and a message event for the same message are one. */
+  message: (teamId: string | undefined, channelId: string, ts: string) => `slack:message:${teamId ?? '-'}:${channelId}:${ts}`,
+  action: (teamId: string | undefined, triggerId: string) => `slack:action:${teamId ?? '-'}:${triggerId}`,
+  /** One post of one result into one place, however often the button is pressed. */
+  share: (resultId: string, channelId: string, threadTs: string | undefined) => `slack:share:${resultId}:${channelId}:${threadTs ?? '-'}`,
+};
+
+function conversationKey(where: Where): string {
+  return `slack:${where.teamId ?? '-'}:${where.channelId}:${where.userId}`;
+}
+
+export interface Asked {
+  readonly reply: Reply;
+  /** After the answer is out: remember the conversation's last result and complete the event. */
+  settle(): Promise<void>;
+}
+
+export async function ask(deps: SlackDeps, text: string, where: Where): Promise<Asked> {
+  const key = conversationKey(where);
+  const before = await deps.conversations.lastResult(key);
+  const session: { lastResultId?: string } = before ? { lastResultId: before } : {};
+  const ctx = contextFor(deps, 'slack', { userId: where.userId, channelId: where.channelId }, session, where.eventKey);
+  const reply = await deps.handle(text, ctx);
+  return {
+    reply,
+    settle: async () => {
+      if (session.lastResultId && session.lastResultId !== before) await deps.conversations.setLastResult(key, session.lastResultId);
+      await deps.ledger.complete(where.eventKey);
+    },
+  };
+}

@@ -1,0 +1,107 @@
+/**
+ * The Slack surface's entry, called by src/main.ts when Slack settings are present:
+ * opens the store, builds the app, starts it, and runs until SIGINT/SIGTERM (or `stopSignal`).
+ * Resolves with the process exit status: 0 after a clean stop, 78 when the configuration is
+ * wrong (a rejected token), 1 when start-up failed otherwise.
+ */
+import type { Logger } from '@slack/bolt';
+import { openServices, type Services } from '../../app.js';
+import { handle as defaultHandle } from '../../commands/handle.js';
+import type { Config } from '../../config.js';
+import { migrate } from '../../store/db.js';
+import { SqliteConversationMemory, conversationMigrations } from '../../store/conversations-sqlite.js';
+import { SqliteEventLedger } from '../../store/event-ledger-sqlite.js';
+import { createSlackApp, SlackStartError, type SlackRuntime } from './app.js';
+import { DEFAULT_ACK_DEADLINE_MS, DEFAULT_HISTORY_TIMEOUT_MS, type Handler, type SlackDeps } from './deps.js';
+import { createLogger } from './logger.js';
+
+export { createSlackApp, SlackStartError, type SlackRuntime } from './app.js';
+export type { Handler, SlackDeps } from './deps.js';
+
+export interface StartSlackDeps {
+  readonly io: { readonly stderr: NodeJS.WritableStream };
+  readonly handle?: Handler;
+  readonly services?: Services;
+  readonly logger?: Logger;
+  /** Resolves when the process should stop; SIGINT or SIGTERM when absent. */
+  readonly stopSignal?: Promise<unknown>;
+  /** Told the HTTP port once everything is up (tests, the benchmark). */
+  readonly onReady?: (info: { port: number; runtime: SlackRuntime }) => void;
+}
+
+/** The adapter's dependencies over the embedded database of `services`. */
+export function slackDepsFor(services: Services, logger: Logger, handle: Handler = defaultHandle): SlackDeps {
+  migrate(services.db, conversationMigrations);
+  const ping = services.db.prepare('SELECT 1');
+  return {
+    handle,
+    results: services.results,
+    ledger: new SqliteEventLedger(services.db, { now: services.now }),
+    conversations: new SqliteConversationMemory(services.db, services.now),
+    now: services.now,
+    newId: services.newId,
+    logger,
+    fetch: globalThis.fetch.bind(globalThis),
+    storeHealthy: () => {
+      try {
+        return ping.get() !== undefined;
+      } catch {
+        return false;
+      }
+    },
+    ackDeadlineMs: DEFAULT_ACK_DEADLINE_MS,
+    historyTimeoutMs: DEFAULT_HISTORY_TIMEOUT_MS,
+  };
+}
+
+function untilSignal(): Promise<string> {
+  return new Promise((resolve) => {
+    const done = (signal: string): void => {
+      process.off('SIGINT', onInt);
+      process.off('SIGTERM', onTerm);
+      resolve(signal);
+    };
+    const onInt = (): void => done('SIGINT');
+    const onTerm = (): void => done('SIGTERM');
+    process.on('SIGINT', onInt);
+    process.on('SIGTERM', onTerm);
+  });
+}
+
+export async function startSlack(config: Config, deps: StartSlackDeps): Promise<number> {
+  const slack = config.slack;
+  if (!slack) {
+    deps.io.stderr.write('shiftprobe: no Slack settings (see docs/slack.md).\n');
+    return 78;
+  }
+  const secrets = [slack.botToken.reveal(), slack.transport === 'socket' ? slack.appToken.reveal() : slack.signingSecret.reveal()];
+  const logger =
+    deps.logger ?? createLogger({ sink: (line) => deps.io.stderr.write(line + '\n'), level: config.base.logLevel, secrets });
+  const services = deps.services ?? openServices(config.base.databasePath);
+  const runtime = createSlackApp({
+    slack,
+    port: config.base.port,
+    host: config.base.host,
+    deps: slackDepsFor(services, logger, deps.handle),
+  });
+  try {
+    const { port } = await runtime.start();
+    logger.info(
+      `shiftprobe is answering on Slack (${slack.transport === 'http' ? `HTTP, events at :${port}/slack/events` : 'Socket Mode'}); ` +
+        `${slack.slashCommand}, mentions and DMs; health at :${port}/healthz and /readyz`,
+    );
+    deps.onReady?.({ port, runtime });
+    await (deps.stopSignal ?? untilSignal());
+    await runtime.stop();
+    return 0;
+  } catch (error) {
+    if (error instanceof SlackStartError) {
+      deps.io.stderr.write(`shiftprobe cannot start: ${error.message}\n`);
+      return 78;
+    }
+    logger.error('shiftprobe could not start on Slack:', error);
+    return 1;
+  } finally {
+    if (!deps.services) services.close();
+  }
+}

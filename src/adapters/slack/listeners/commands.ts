@@ -1,0 +1,36 @@
+/**
+ * The slash command: answered privately (ephemeral) inside Slack's 3-second window. The card
+ * goes out with the acknowledgement itself; if the answer takes longer than the ack deadline,
+ * the ack says "working on it" and the card follows through the response URL.
+ */
+import type { App } from '@slack/bolt';
+import { ask, eventKeys } from '../conversation.js';
+import { cardFor } from '../cards.js';
+import type { ListenerDeps } from '../deps.js';
+import { commandTextFromSlack } from '../incoming-text.js';
+import { toResponseUrl, within } from '../outbound.js';
+
+const WORKING = ':hourglass_flowing_sand: Working on it…';
+
+export function registerCommands(app: App, deps: ListenerDeps): void {
+  app.command(deps.slashCommand, async ({ command, ack }) => {
+    const where = {
+      teamId: command.team_id,
+      userId: command.user_id,
+      channelId: command.channel_id,
+      eventKey: eventKeys.command(command.team_id, command.trigger_id),
+    };
+    if (!(await deps.ledger.claim(where.eventKey))) return ack();
+    const helpHint = `${deps.slashCommand} help`;
+    const pending = ask(deps, commandTextFromSlack(command.text), where);
+    const asked = await within(pending, deps.ackDeadlineMs);
+    if (asked) {
+      await ack({ response_type: 'ephemeral', ...cardFor(asked.reply, 'private', { helpHint }) });
+      return asked.settle();
+    }
+    await ack({ response_type: 'ephemeral', text: WORKING });
+    const late = await pending;
+    await toResponseUrl(deps.fetch, command.response_url, cardFor(late.reply, 'private', { helpHint }), 'replace');
+    return late.settle();
+  });
+}

@@ -1,0 +1,54 @@
+/**
+ * Mentions and direct messages. A mention in a channel or inside a thread is answered in the
+ * mention's thread (results publicly, errors privately to the person); a direct message is
+ * answered in the DM. The event key is the message itself, so Slack's retries, redeliveries
+ * and several instances give one answer.
+ */
+import type { App } from '@slack/bolt';
+import { ask, eventKeys } from '../conversation.js';
+import { cardFor } from '../cards.js';
+import type { ListenerDeps } from '../deps.js';
+import { commandTextFromSlack } from '../incoming-text.js';
+import { postEphemeral, postMessage } from '../outbound.js';
+
+interface IncomingMessage {
+  readonly channel: string;
+  readonly user?: string;
+  readonly text?: string;
+  readonly ts: string;
+  readonly thread_ts?: string;
+  readonly team?: string;
+}
+
+export function registerEvents(app: App, deps: ListenerDeps): void {
+  app.event('app_mention', async ({ event, body, client, context }) => {
+    const m = event as unknown as IncomingMessage;
+    if (!m.user) return;
+    const where = { teamId: body.team_id, userId: m.user, channelId: m.channel, eventKey: eventKeys.message(body.team_id, m.channel, m.ts) };
+    if (!(await deps.ledger.claim(where.eventKey))) return;
+    const asked = await ask(deps, commandTextFromSlack(m.text, context.botUserId), where);
+    const threadTs = m.thread_ts ?? m.ts;
+    const helpHint = '@shiftprobe help';
+    if (asked.reply.ok) {
+      const sent = await postMessage(client, { channel: m.channel, threadTs }, cardFor(asked.reply, 'thread', { helpHint }));
+      if (sent.ok) await deps.conversations.rememberThread({ channelId: m.channel, threadTs, title: asked.reply.title, lastAt: deps.now() });
+      else throw Object.assign(new Error(`posting the answer failed: ${sent.code}`), { data: { error: sent.code } });
+    } else {
+      await postEphemeral(client, { channel: m.channel, user: m.user, threadTs }, cardFor(asked.reply, 'thread', { helpHint }));
+    }
+    await asked.settle();
+  });
+
+  app.event('message', async ({ event, body, client, context }) => {
+    const m = event as unknown as IncomingMessage & { channel_type?: string; subtype?: string; bot_id?: string };
+    // Only what a person typed in a DM with the bot: no edits, joins, bot posts or our own replies.
+    if (m.channel_type !== 'im' || m.subtype !== undefined || m.bot_id !== undefined || !m.user) return;
+    if (m.user === context.botUserId) return;
+    const where = { teamId: body.team_id, userId: m.user, channelId: m.channel, eventKey: eventKeys.message(body.team_id, m.channel, m.ts) };
+    if (!(await deps.ledger.claim(where.eventKey))) return;
+    const asked = await ask(deps, commandTextFromSlack(m.text, context.botUserId), where);
+    const sent = await postMessage(client, { channel: m.channel, ...(m.thread_ts ? { threadTs: m.thread_ts } : {}) }, cardFor(asked.reply, 'dm', { helpHint: 'help' }));
+    if (!sent.ok) throw Object.assign(new Error(`posting the answer failed: ${sent.code}`), { data: { error: sent.code } });
+    await asked.settle();
+  });
+}

@@ -1,0 +1,139 @@
+/**
+ * A small fake of the Slack Web API on loopback. The app under test points
+ * `clientOptions.slackApiUrl` here; every call is recorded (method, parameters, token), and so is
+ * every message sent to a response URL (the fake hands out response URLs on itself). Answers are
+ * what the Web API reference documents for each method; a test can override any method.
+ */
+import { createServer, type IncomingMessage, type Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+
+export interface ApiCall {
+  readonly method: string;
+  readonly params: Record<string, unknown>;
+  readonly token: string | undefined;
+}
+
+export interface ResponseUrlPost {
+  readonly id: string;
+  readonly body: Record<string, unknown>;
+}
+
+type Answer = (params: Record<string, unknown>) => Record<string, unknown>;
+
+export const FAKE_TEAM = 'T0HGF3';
+export const FAKE_BOT_USER = 'U0SHIFTBOT';
+export const FAKE_BOT_ID = 'B0SHIFTBOT';
+
+async function readBody(req: IncomingMessage): Promise<string> {
+  const chunks: Buffer[] = [];
+  for await (const c of req) chunks.push(c as Buffer);
+  return Buffer.concat(chunks).toString('utf8');
+}
+
+/** Form values that hold JSON (blocks, view, …) are decoded, as Slack does. */
+function decodeParams(raw: string, contentType: string | undefined): Record<string, unknown> {
+  if (contentType?.includes('application/json')) return raw ? (JSON.parse(raw) as Record<string, unknown>) : {};
+  const out: Record<string, unknown> = {};
+  for (const [k, v] of new URLSearchParams(raw)) {
+    if (/^[[{]/.test(v)) {
+      try {
+        out[k] = JSON.parse(v);
+        continue;
+      } catch {
+        /* a plain string that starts with a bracket */
+      }
+    }
+    out[k] = v;
+  }
+  return out;
+}
+
+export class FakeSlack {
+  readonly calls: ApiCall[] = [];
+  readonly responsePosts: ResponseUrlPost[] = [];
+  private readonly overrides = new Map<string, Answer>();
+  private server: Server | undefined;
+  private port = 0;
+  private ts = 1_930_000_000;
+
+  get apiUrl(): string {
+    return `http://127.0.0.1:${this.port}/api/`;
+  }
+
+  responseUrl(id: string): string {
+    return `http://127.0.0.1:${this.port}/respond/${id}`;
+  }
+
+  /** Replace the answer to one Web API method. */
+  answer(method: string, answer: Answer): void {
+    this.overrides.set(method, answer);
+  }
+
+  callsTo(method: string): ApiCall[] {
+    return this.calls.filter((c) => c.method === method);
+  }
+
+  postsTo(id: string): ResponseUrlPost[] {
+    return this.responsePosts.filter((p) => p.id === id);
+  }
+
+  /** Resolves once `check` holds (polled every few ms), or fails after `timeoutMs`. */
+  async until(check: () => boolean, timeoutMs = 5000): Promise<void> {
+    const started = Date.now();
+    while (!check()) {
+      if (Date.now() - started > timeoutMs) throw new Error('timed out waiting for the app to call the fake Slack API');
+      await new Promise((r) => setTimeout(r, 5));
+    }
+  }
+
+  private nextTs(): string {
+    this.ts += 1;
+    return `${this.ts}.000100`;
+  }
+
+  private defaultAnswer(method: string, params: Record<string, unknown>): Record<string, unknown> {
+    switch (method) {
+      case 'auth.test':
+        return { ok: true, url: 'https://harrowgate-fab3.slack.com/', team: 'Harrowgate Fab 3', user: 'shiftprobe', team_id: FAKE_TEAM, user_id: FAKE_BOT_USER, bot_id: FAKE_BOT_ID };
+      case 'chat.postMessage':
+        return { ok: true, channel: params.channel, ts: this.nextTs(), message: { text: params.text } };
+      case 'chat.postEphemeral':
+        return { ok: true, message_ts: this.nextTs() };
+      case 'views.open':
+        return { ok: true, view: { id: 'V0PICKER', ...(params.view as object) } };
+      case 'conversations.history':
+        return { ok: false, error: 'missing_scope', needed: 'channels:history', provided: 'commands,chat:write,app_mentions:read,im:history' };
+      case 'apps.connections.open':
+        return { ok: false, error: 'not_allowed_token_type' };
+      default:
+        return { ok: false, error: 'unknown_method' };
+    }
+  }
+
+  async start(): Promise<void> {
+    this.server = createServer(async (req, res) => {
+      const url = new URL(req.url ?? '/', 'http://127.0.0.1');
+      const raw = await readBody(req);
+      if (url.pathname.startsWith('/respond/')) {
+        this.responsePosts.push({ id: url.pathname.slice('/respond/'.length), body: JSON.parse(raw || '{}') as Record<string, unknown> });
+        res.writeHead(200, { 'content-type': 'text/plain' }).end('ok');
+        return;
+      }
+      const method = url.pathname.replace(/^\/api\//, '');
+      const params = decodeParams(raw, req.headers['content-type']);
+      const auth = req.headers.authorization;
+      const token = auth?.startsWith('Bearer ') ? auth.slice(7) : typeof params.token === 'string' ? params.token : undefined;
+      delete params.token;
+      this.calls.push({ method, params, token });
+      const answer = this.overrides.get(method)?.(params) ?? this.defaultAnswer(method, params);
+      res.writeHead(200, { 'content-type': 'application/json; charset=utf-8' }).end(JSON.stringify(answer));
+    });
+    await new Promise<void>((resolve) => this.server!.listen(0, '127.0.0.1', resolve));
+    this.port = (this.server.address() as AddressInfo).port;
+  }
+
+  async stop(): Promise<void> {
+    this.server?.closeAllConnections();
+    await new Promise<void>((resolve) => (this.server ? this.server.close(() => resolve()) : resolve()));
+  }
+}
