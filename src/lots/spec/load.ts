@@ -45,7 +45,7 @@ export function parseSpecText(text: string, source: string, options: { demo?: bo
     return { ok: false, source, problems: [{ field: '', message: `larger than ${MAX_SPEC_FILE_BYTES} bytes; is this the spec file?` }] };
   }
   const lineCounter = new LineCounter();
-  const doc = parseDocument(text, { lineCounter, uniqueKeys: true, prettyErrors: false });
+  const doc = parseDocument(text, { lineCounter, uniqueKeys: true, prettyErrors: true });
   if (doc.errors.length > 0) {
     return {
       ok: false,
@@ -68,6 +68,8 @@ export function parseSpecText(text: string, source: string, options: { demo?: bo
       source,
       problems: parsed.error.issues.map((issue) => {
         const path = issue.path.map((p) => (typeof p === 'symbol' ? String(p) : p));
+        // An unknown key: point at the key itself.
+        if (issue.code === 'unrecognized_keys' && issue.keys[0] !== undefined) path.push(issue.keys[0]);
         const node = nodeAt(doc.contents, path);
         const pos = node?.range ? lineCounter.linePos(node.range[0]) : undefined;
         return {
@@ -110,8 +112,10 @@ export function describeSpecProblems(load: Extract<SpecLoad, { ok: false }>): st
   return `The spec file ${load.source} has ${load.problems.length} problem${load.problems.length === 1 ? '' : 's'}:\n${lines.join('\n')}`;
 }
 
+/** The parser's message without its code excerpt and its own "at line N, column M" (we give those). */
 function firstLine(message: string): string {
-  return message.split('\n')[0] ?? message;
+  const first = message.split('\n')[0] ?? message;
+  return first.replace(/\s+at line \d+, column \d+:?\s*$/, '');
 }
 
 /**
@@ -126,8 +130,9 @@ function nodeAt(root: unknown, path: readonly (string | number)[]): Node | undef
       const pair = node.items.find((it) => isPair(it) && isScalar(it.key) && String(it.key.value) === String(segment));
       if (!pair) return found;
       const value = pair.value as Node | null;
-      // A present key with a null value: point at the key.
-      node = value ?? (pair.key as Node);
+      const last = segment === path[path.length - 1];
+      // Point at the key for a missing value or a whole block (the line that names it).
+      node = value === null || (last && (isMap(value) || isSeq(value))) ? (pair.key as Node) : value;
     } else if (isSeq(node) && typeof segment === 'number') {
       const item = node.items[segment] as Node | undefined;
       if (!item) return found;
