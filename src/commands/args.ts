@@ -79,6 +79,9 @@ export class Args {
     for (let i = 0; i < this.tokens.length; i++) {
       const t = this.tokens[i]!;
       if (this.used[i] || t.kind !== 'number') continue;
+      if (!Number.isFinite(t.value)) {
+        throw new ArgError('not_finite', `"${t.raw}" is too large to be a measured value; check the exponent.`);
+      }
       if (t.unitText === '') {
         this.used[i] = true;
         return { ...this.read(t, dimensions[0]!, undefined), bareNumber: true };
@@ -109,6 +112,9 @@ export class Args {
   }
 
   private read(t: Token, dimension: Dimension, key: string | undefined): Quantity {
+    if (t.kind === 'number' && !Number.isFinite(t.value)) {
+      throw new ArgError('not_finite', `"${t.raw}" is too large to be a measured value; check the exponent.`);
+    }
     const q = parseQuantity(t.kind === 'number' ? `${t.value} ${t.unitText}` : t.raw, dimension);
     const what = key ? `"${key}"` : 'the value';
     if (!q.ok) {

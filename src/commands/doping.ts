@@ -71,7 +71,7 @@ export const dopingCommand = defineCommand<DopingRequest>({
       inputs: {
         dopantDensity: { value: req.dopantDensityPerCm3, unit: 'cm⁻³', label: `${capital(r.dopant)} density`, asTyped: req.densityAsTyped },
         dopant: { value: r.dopant, label: 'Dopant', asTyped: req.dopantAsTyped },
-        material: { value: 'Si', label: 'Material' },
+        material: { value: 'silicon', label: 'Material' },
       },
       extraAssumptions,
     });

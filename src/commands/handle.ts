@@ -54,7 +54,10 @@ async function dispatch(text: string, ctx: HandleContext): Promise<Reply> {
     });
   }
   let tokens = tokenize(trimmed);
-  const first = tokens[0]!;
+  const first = tokens[0];
+  if (!first) {
+    return errorReply('empty', 'Ask me something, for example a resistivity reading.', { usage: 'help', example: 'rho 8.2 ohm-cm p' });
+  }
   let verbText: string;
   if (first.kind === 'number') {
     const implied = impliedVerb(first);

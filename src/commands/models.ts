@@ -74,12 +74,13 @@ export const modelsCommand = defineCommand<ModelsRequest>({
     const sections: ReplySection[] = [
       {
         heading: 'Resistivity ↔ dopant density (silicon)',
-        table: { columns: ['id', 'model', 'covers', 'source'], rows: conversion.map((m) => [m.id, m.name, m.covers, m.citation]) },
+        table: { columns: ['id', 'model', 'covers'], rows: conversion.map((m) => [m.id, m.name, m.covers]) },
       },
       {
         heading: 'Intrinsic carrier density',
-        table: { columns: ['id', 'model', 'covers', 'source'], rows: intrinsic.map((m) => [m.id, m.name, m.covers, m.citation]) },
+        table: { columns: ['id', 'model', 'covers'], rows: intrinsic.map((m) => [m.id, m.name, m.covers]) },
       },
+      { lines: ['`models <id>` shows one model: what it covers, its validity, equations and source.'] },
       { lines: ['Defaults: ASTM F723 for boron and phosphorus, Masetti 1983 for arsenic, the F723 phosphorus conversion for antimony below 1×10¹⁹ cm⁻³.'] },
     ];
     return okReply(identity(ctx), { command: 'models', title: 'Models and their sources', decision: false, sections });

@@ -75,7 +75,7 @@ export const niCommand = defineCommand<NiRequest>({
       ],
       inputs: {
         temperature: { value: r.temperatureK, unit: 'K', label: 'Temperature', asTyped: req.temperatureAsTyped },
-        material: { value: r.material, label: 'Material', asTyped: MATERIAL_LABEL[r.material] },
+        material: { value: MATERIAL_LABEL[r.material], label: 'Material' },
       },
       assumptions,
       model: {

@@ -75,7 +75,7 @@ export const rhoCommand = defineCommand<RhoRequest>({
       inputs: {
         resistivity: { value: req.resistivityOhmCm, unit: 'Ω·cm', label: 'Resistivity', asTyped: req.resistivityAsTyped },
         dopant: { value: r.dopant, label: 'Dopant', asTyped: req.dopantAsTyped },
-        material: { value: 'Si', label: 'Material' },
+        material: { value: 'silicon', label: 'Material' },
       },
       extraAssumptions,
     });

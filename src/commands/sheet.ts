@@ -105,8 +105,8 @@ export const sheetCommand = defineCommand<SheetRequest>({
     const inputs: Record<string, ReplyInput> = {};
     const t = req.asTyped;
     if (req.sheetResistanceOhmPerSq !== undefined) inputs['sheetResistance'] = { value: req.sheetResistanceOhmPerSq, unit: 'Ω/□', label: 'Sheet resistance as read', asTyped: t['rs'] ?? '' };
-    if (req.voltageV !== undefined) inputs['voltage'] = { value: req.voltageV, unit: 'V', label: 'Voltage (inner pins)', asTyped: t['v'] ?? '' };
-    if (req.currentA !== undefined) inputs['current'] = { value: req.currentA, unit: 'A', label: 'Current (outer pins)', asTyped: t['i'] ?? '' };
+    if (req.voltageV !== undefined) inputs['voltage'] = { value: req.voltageV * 1e3, unit: 'mV', label: 'Voltage (inner pins)', asTyped: t['v'] ?? '' };
+    if (req.currentA !== undefined) inputs['current'] = { value: req.currentA * 1e3, unit: 'mA', label: 'Current (outer pins)', asTyped: t['i'] ?? '' };
     if (req.thicknessCm !== undefined) inputs['thickness'] = { value: req.thicknessCm * 1e4, unit: 'µm', label: 'Thickness', asTyped: t['thickness'] ?? '' };
     if (req.spacingCm !== undefined) inputs['spacing'] = { value: req.spacingCm * 10, unit: 'mm', label: 'Probe spacing', asTyped: t['spacing'] ?? '' };
     if (req.diameterCm !== undefined) inputs['diameter'] = { value: req.diameterCm * 10, unit: 'mm', label: 'Wafer diameter', asTyped: t['diameter'] ?? '' };

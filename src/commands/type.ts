@@ -152,14 +152,14 @@ export const typeCommand = defineCommand<TypeRequest>({
     const r = outcome.value;
     const material = req.material ?? 'Si';
     const inputs: Record<string, ReplyInput> = {
-      method: { value: req.method, label: 'Method', asTyped: METHOD_NAMES[req.method] },
+      method: { value: METHOD_NAMES[req.method], label: 'Method' },
       reading: {
-        value: req.method === 'point' ? (req.reading > 0 ? '+' : '−') : req.reading,
-        unit: req.method === 'hall' ? 'cm³/C' : req.method === 'point' ? '' : 'V',
+        value: req.method === 'point' ? (req.reading > 0 ? '+' : '−') : req.method === 'hall' ? req.reading : req.reading * 1e3,
+        unit: req.method === 'hall' ? 'cm³/C' : req.method === 'point' ? '' : 'mV',
         label: req.method === 'point' ? 'Point polarity at easy conduction' : 'Reading',
         asTyped: req.readingAsTyped,
       },
-      material: { value: material, label: 'Material', asTyped: MATERIAL_LABEL[material] },
+      material: { value: MATERIAL_LABEL[material], label: 'Material' },
     };
     if (req.resistivityOhmCm !== undefined) inputs['resistivity'] = { value: req.resistivityOhmCm, unit: 'Ω·cm', label: 'Resistivity' };
     if (req.expect) inputs['expect'] = { value: req.expect, label: 'Expected type' };
@@ -167,21 +167,24 @@ export const typeCommand = defineCommand<TypeRequest>({
     const cautions =
       req.method === 'hot' ? [HOT_PROBE_HAZARD] : req.method === 'hall' ? [HALL_HAZARD] : req.method === 'point' ? [ELECTRICAL_HAZARD] : [];
     const verdict = r.carrierType === 'indeterminate' ? 'indeterminate' : `${r.carrierType}-type`;
+    // Voltages read in mV on the bench: show them so.
+    const band = r.noiseBandUnit === 'V' ? { value: r.noiseBand * 1e3, unit: 'mV' } : { value: r.noiseBand, unit: r.noiseBandUnit };
+    const banded = req.method !== 'point';
     return okReply(identity(ctx), {
       command: 'type',
       title: `${METHOD_NAMES[req.method]}: ${verdict}`,
       values: [
         { key: 'carrierType', value: r.carrierType, unit: '', label: 'Conductivity type', headline: true },
-        { key: 'noiseBand', value: r.noiseBand, unit: r.noiseBandUnit, label: 'Noise band (±)' },
+        ...(banded ? [{ key: 'noiseBand', value: band.value, unit: band.unit, label: 'Noise band (±)' }] : []),
       ],
       inputs,
-      assumptions: [r.conventionText, `Readings within ±${formatNumber(r.noiseBand)} ${r.noiseBandUnit} are called indeterminate.`],
+      assumptions: [r.conventionText, ...(banded ? [`Readings within ±${formatNumber(band.value)} ${band.unit} are called indeterminate.`] : [])],
       model: { id: `type-${req.method}`, name: METHOD_NAMES[req.method], citation: r.source },
       problems: r.problems,
       cautions,
       derivation: {
         equations: [r.conventionText],
-        parameters: [{ name: 'noise band', value: r.noiseBand, unit: r.noiseBandUnit }],
+        parameters: banded ? [{ name: 'noise band', value: band.value, unit: band.unit }] : [],
         steps: [
           `reading ${req.readingAsTyped} → ${verdict}`,
         ],
