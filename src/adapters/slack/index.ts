@@ -25,6 +25,8 @@ export interface StartSlackDeps {
   readonly logger?: Logger;
   /** Resolves when the process should stop; SIGINT or SIGTERM when absent. */
   readonly stopSignal?: Promise<unknown>;
+  /** Replaces parts of the adapter's dependencies (tests: deadlines, fetch). */
+  readonly overrides?: Partial<SlackDeps>;
   /** Told the HTTP port once everything is up (tests, the benchmark). */
   readonly onReady?: (info: { port: number; runtime: SlackRuntime }) => void;
 }
@@ -82,7 +84,7 @@ export async function startSlack(config: Config, deps: StartSlackDeps): Promise<
     slack,
     port: config.base.port,
     host: config.base.host,
-    deps: slackDepsFor(services, logger, deps.handle),
+    deps: { ...slackDepsFor(services, logger, deps.handle), ...deps.overrides },
   });
   try {
     const { port } = await runtime.start();

@@ -33,6 +33,8 @@ export interface TestAppOptions {
   readonly firstId?: number;
   readonly handle?: Handler;
   readonly env?: Record<string, string>;
+  /** Slash-command ack deadline (default 2000 ms). */
+  readonly ackDeadlineMs?: number;
 }
 
 export async function startTestApp(options: TestAppOptions): Promise<TestApp> {
@@ -69,6 +71,7 @@ export async function startTestApp(options: TestAppOptions): Promise<TestApp> {
     stopSignal,
     onReady: ready,
     ...(options.handle ? { handle: options.handle } : {}),
+    ...(options.ackDeadlineMs !== undefined ? { overrides: { ackDeadlineMs: options.ackDeadlineMs } } : {}),
   });
   const started = await Promise.race([up, running.then((code) => Promise.reject(new Error(`startSlack exited with ${code}: ${logs.join('\n')}`)))]);
   const url = `http://127.0.0.1:${started.port}`;
