@@ -5,6 +5,7 @@
  */
 import { fourPointProbe } from '../physics/four-point/sheet.js';
 import { convertResistivityToDensity } from '../physics/resistivity/convert.js';
+import { correctResistivityToReference } from '../physics/resistivity/temperature-correction.js';
 import { carrierTypeFromReading } from '../physics/type/classify.js';
 import type { Dopant } from '../physics/types.js';
 import type { LotPhysics } from './physics.js';
@@ -15,6 +16,21 @@ function validitySentence(validity: Readonly<Partial<Record<Dopant, { resistivit
 }
 
 export const corePhysics: LotPhysics = {
+  correctTo23C(resistivityOhmCm, temperatureK, dopant) {
+    const out = correctResistivityToReference({ resistivityOhmCm, temperatureK, dopant });
+    if (!out.ok) return { ok: false, refusal: out.refusal };
+    const m = out.value.mobilityModel;
+    return {
+      ok: true,
+      resistivityOhmCm: out.value.resistivityOhmCm,
+      coefficientPerK: out.value.meanCoefficientPerK,
+      model: m
+        ? { id: m.id, name: m.name, citation: m.citation }
+        : { id: 'linear-coefficient', name: 'Linear temperature coefficient', citation: '' },
+      problems: out.value.problems,
+      assumptionCodes: out.value.assumptionCodes,
+    };
+  },
   densityFromResistivity(resistivityOhmCm, dopant, modelId) {
     const out = convertResistivityToDensity(modelId === undefined ? { resistivityOhmCm, dopant } : { resistivityOhmCm, dopant, modelId });
     if (!out.ok) return { ok: false, refusal: out.refusal };

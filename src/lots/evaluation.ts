@@ -72,6 +72,14 @@ export type Check =
 export type LotNote =
   | { readonly code: 'temperature_uncorrected'; readonly temperatureK: number }
   | {
+      readonly code: 'temperature_corrected';
+      readonly temperatureK: number;
+      readonly measuredOhmCm: number;
+      readonly correctedOhmCm: number;
+      readonly coefficientPerK: number;
+      readonly model: ModelRef;
+    }
+  | {
       readonly code: 'near_limit';
       readonly quantity: 'resistivityOhmCm' | 'dopantDensityPerCm3';
       readonly marginPercent: number;
@@ -170,16 +178,12 @@ export function evaluateRecord(input: EvaluationInput): { ok: true; value: Evalu
       detail: { code: 'no_spec', reason: 'unknown_product', productId: input.productId, ...(suggestion ? { suggestion } : {}) },
     });
   }
-  const temperatureNotes: LotNote[] =
-    request.temperatureK !== undefined && Math.abs(request.temperatureK - SPEC_TEMPERATURE_K) >= TEMPERATURE_TOLERANCE_K
-      ? [{ code: 'temperature_uncorrected', temperatureK: request.temperatureK }]
-      : [];
 
   const drafts: ReadingDraft[] = [];
   let primaryRho: number | undefined;
 
   if (request.primary) {
-    const primary = primaryDraft(request.primary, request, product, physics, input.currentPoints, temperatureNotes, specRef);
+    const primary = primaryDraft(request.primary, request, product, physics, input.currentPoints, specRef);
     if (!primary.ok) return primary;
     primaryRho = primary.value.resistivityOhmCm;
     drafts.push(primary.value);
@@ -220,10 +224,9 @@ function primaryDraft(
   product: Product | undefined,
   physics: LotPhysics,
   currentPoints: readonly PlaceValue[],
-  temperatureNotes: readonly LotNote[],
   specRef: Partial<ReadingEvaluation>,
 ): DraftResult {
-  const notes: LotNote[] = [...temperatureNotes];
+  const notes: LotNote[] = [];
   const checks: Check[] = [];
   const findings: FlagFinding[] = [];
   let rho: number;
@@ -235,6 +238,26 @@ function primaryDraft(
     for (const a of sheet.assumptionCodes) notes.push({ code: 'assumption', assumption: a });
   } else {
     rho = m.resistivityOhmCm;
+  }
+  // A reading off 23 °C is corrected to 23 °C with the product's dopant before any check
+  // (a model estimate, said so); without a product, or if the core cannot, it is used as read.
+  const t = request.temperatureK;
+  if (t !== undefined && Math.abs(t - SPEC_TEMPERATURE_K) >= TEMPERATURE_TOLERANCE_K) {
+    const corrected = product ? physics.correctTo23C(rho, t, product.dopant) : undefined;
+    if (corrected?.ok) {
+      notes.push({
+        code: 'temperature_corrected',
+        temperatureK: t,
+        measuredOhmCm: rho,
+        correctedOhmCm: corrected.resistivityOhmCm,
+        coefficientPerK: corrected.coefficientPerK,
+        model: corrected.model,
+      });
+      for (const p of corrected.problems) notes.push({ code: 'problem', problem: p });
+      rho = corrected.resistivityOhmCm;
+    } else {
+      notes.push({ code: 'temperature_uncorrected', temperatureK: t });
+    }
   }
   const scope = placeScope(request.wafer, request.site);
   const place = { ...(request.wafer !== undefined ? { wafer: request.wafer } : {}), ...(request.site !== undefined ? { site: request.site } : {}) };

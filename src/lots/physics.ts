@@ -38,7 +38,19 @@ export interface TypeFinding {
   readonly problems: readonly Problem[];
 }
 
+export interface TemperatureCorrection {
+  /** The reading corrected to 23 °C, Ω·cm. */
+  readonly resistivityOhmCm: number;
+  /** The coefficient applied (per K), for the reply. */
+  readonly coefficientPerK: number;
+  readonly model: ModelRef;
+  readonly problems: readonly Problem[];
+  readonly assumptionCodes: readonly string[];
+}
+
 export interface LotPhysics {
+  /** A resistivity read at `temperatureK`, corrected to 23 °C for the product's dopant (model estimate). */
+  correctTo23C(resistivityOhmCm: number, temperatureK: number, dopant: Dopant): PortResult<TemperatureCorrection>;
   /** ρ (at 23 °C) → dopant density with the product's dopant and (optional) model. */
   densityFromResistivity(resistivityOhmCm: number, dopant: Dopant, modelId?: string): PortResult<DensityConversion>;
   /** Four-point-probe sheet resistance and thickness → resistivity (with spacing if known). */
