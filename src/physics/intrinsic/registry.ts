@@ -38,8 +38,29 @@ export function findIntrinsicModel(id: string): IntrinsicModel | undefined {
   return INTRINSIC_MODELS.find((m) => m.id === key || (m.aliases ?? []).includes(key));
 }
 
-export function defaultIntrinsicModel(material: Material): IntrinsicModel {
-  return material === 'Si' ? misiakosTsamakis1993 : densityOfStatesModel;
+/** Preference order of the defaults: the measured fits first, the physical form last. */
+const DEFAULT_PREFERENCE: Readonly<Record<Material, readonly IntrinsicModel[]>> = {
+  Si: [misiakosTsamakis1993, sproulGreen1991, densityOfStatesModel],
+  Ge: [densityOfStatesModel],
+  GaAs: [densityOfStatesModel],
+};
+
+/**
+ * The default model for a material: without a temperature, the first preference (for Si,
+ * Misiakos–Tsamakis); with one, the first preference whose validity covers it (so 85 °C takes
+ * Sproul–Green, 275–375 K, rather than extrapolating Misiakos–Tsamakis beyond 340 K), and the
+ * first preference again when none covers it (the reply then warns).
+ */
+export function defaultIntrinsicModel(material: Material, temperatureK?: number): IntrinsicModel {
+  const prefs = DEFAULT_PREFERENCE[material];
+  if (temperatureK !== undefined) {
+    const covering = prefs.find((m) => {
+      const v = m.validityTemperatureKFor?.(material) ?? m.validityTemperatureK;
+      return temperatureK >= v.min && temperatureK <= v.max;
+    });
+    if (covering) return covering;
+  }
+  return prefs[0]!;
 }
 
 export interface IntrinsicDensityResult {
@@ -61,7 +82,7 @@ export interface IntrinsicDensityResult {
  */
 export function intrinsicDensityPerCm3(material: Material, temperatureK: number, modelId?: string): number {
   if (!(temperatureK > 0)) return Number.NaN;
-  const model = modelId === undefined ? defaultIntrinsicModel(material) : findIntrinsicModel(modelId);
+  const model = modelId === undefined ? defaultIntrinsicModel(material, temperatureK) : findIntrinsicModel(modelId);
   if (!model || !model.materials.includes(material)) return Number.NaN;
   return model.intrinsicDensityPerCm3(material, temperatureK);
 }
@@ -83,7 +104,7 @@ export function intrinsicDensity(req: {
     }
     model = found;
   } else {
-    model = defaultIntrinsicModel(material);
+    model = defaultIntrinsicModel(material, temperatureK);
   }
   const dom = INTRINSIC_DOMAIN_TEMPERATURE_K;
   if (temperatureK < dom.min || temperatureK > dom.max) {

@@ -32,9 +32,14 @@ describe('intrinsicDensity (public API)', () => {
     expect(far.value.problems.map((p) => p.code)).not.toContain('outdated_value');
   });
   it('warns outside each fit’s range (Misiakos 78–340 K; Sproul–Green 275–375 K)', () => {
-    const a = intrinsicDensity({ temperatureK: 358.15, material: 'Si' });
+    const a = intrinsicDensity({ temperatureK: 358.15, material: 'Si', modelId: 'misiakos' });
     if (!a.ok) throw new Error(a.refusal.code);
     expect(a.value.problems).toContainEqual(expect.objectContaining({ code: 'outside_validity', quantity: 'temperatureK', max: 340 }));
+    // The default picks the fit whose range covers the temperature: 85 °C is inside Sproul–Green's 275–375 K.
+    const d = intrinsicDensity({ temperatureK: 358.15, material: 'Si' });
+    if (!d.ok) throw new Error(d.refusal.code);
+    expect(d.value.model.id).toBe('sproul-green-1991');
+    expect(d.value.problems.map((p) => p.code)).not.toContain('outside_validity');
     const b = intrinsicDensity({ temperatureK: 250, material: 'Si', modelId: 'sproul-green' });
     if (!b.ok) throw new Error(b.refusal.code);
     expect(b.value.problems).toContainEqual(expect.objectContaining({ code: 'outside_validity', min: 275 }));
