@@ -1,0 +1,59 @@
+/**
+ * Regenerates the example outputs in README.md (between the `<!-- examples:begin -->` and
+ * `<!-- examples:end -->` markers) by running each command through the same `handle` and text
+ * renderer the console uses, with a fixed clock and sequential result ids so the text is stable.
+ *   npm run readme:examples
+ */
+import { readFileSync, writeFileSync } from 'node:fs';
+import { MemoryResultStore } from '../src/commands/context.js';
+import { handle } from '../src/commands/handle.js';
+import { renderJson } from '../src/render/json.js';
+import { renderText } from '../src/render/text.js';
+
+const EXAMPLES: readonly { heading: string; commands: readonly string[]; json?: boolean }[] = [
+  { heading: 'Resistivity → dopant density (`rho`)', commands: ['rho 8.2 ohm-cm p', 'rho 0.012 Ω·cm arsenic'] },
+  { heading: 'Dopant density → resistivity (`doping`)', commands: ['doping 3.1x10^16 cm^-3 P'] },
+  { heading: 'Four-point probe (`sheet`)', commands: ['sheet 4.1mV 1mA thick 725um spacing 1mm diam 200mm p', 'sheet 45 ohm/sq thick 525um n'] },
+  { heading: 'Conductivity type (`type`)', commands: ['type hot -1.4mV rho 12 ohm-cm expect n', 'type hall -1.3e3 cm3/C', 'type point forward +'] },
+  { heading: 'Intrinsic carrier density (`ni`)', commands: ['ni 85C', 'ni 400K Ge'] },
+  { heading: 'The derivation of a result (`why`)', commands: ['why r-000001'] },
+  { heading: 'Models and sources (`models`)', commands: ['models', 'models masetti'] },
+  { heading: 'Help (`help`)', commands: ['help', 'help sheet'] },
+  { heading: 'Bad input', commands: ['rho -8.2 ohm-cm p', 'rhp 8.2 ohm-cm p', 'rho 8.2 mV p', 'sheet 45 ohm/sq thick 5 mV'] },
+];
+
+const JSON_EXAMPLES = ['rho 8.2 ohm-cm p', 'rho -8.2 ohm-cm p'];
+
+async function main(): Promise<void> {
+  let n = 0;
+  const ctx = {
+    surface: 'cli' as const,
+    caller: { userId: 'readme', channelId: 'readme' },
+    now: () => new Date('2026-11-30T14:05:00Z'),
+    newId: () => `r-${(++n).toString(16).padStart(6, '0')}`,
+    results: new MemoryResultStore(),
+    session: {},
+  };
+  const out: string[] = [];
+  for (const group of EXAMPLES) {
+    out.push(`### ${group.heading}`, '');
+    for (const c of group.commands) {
+      const reply = await handle(c, ctx);
+      out.push('```', `$ npx shiftprobe "${c}"`, renderText(reply, { width: 92 }), '```', '');
+    }
+  }
+  out.push('### JSON (`--json`)', '');
+  for (const c of JSON_EXAMPLES) {
+    const reply = await handle(c, ctx);
+    out.push('```json', `// npx shiftprobe --json "${c}"`, renderJson(reply), '```', '');
+  }
+  const readme = readFileSync('README.md', 'utf8');
+  const begin = '<!-- examples:begin -->';
+  const end = '<!-- examples:end -->';
+  const a = readme.indexOf(begin);
+  const b = readme.indexOf(end);
+  if (a < 0 || b < a) throw new Error('README.md has no examples markers');
+  writeFileSync('README.md', readme.slice(0, a + begin.length) + '\n' + out.join('\n') + readme.slice(b));
+}
+
+await main();
