@@ -56,6 +56,16 @@ function describeInput(quantity: string, value: number): string {
   return unit ? `${formatNumber(value)} ${unit}` : formatNumber(value);
 }
 
+const DOPANT_NAMES = ['boron', 'phosphorus', 'arsenic', 'antimony'];
+
+/** A model's equations that concern this dopant (lines labelled with another dopant are left out). */
+export function equationsFor(model: ConversionModel, dopant: Dopant): string[] {
+  return model.equations.filter((e) => {
+    const label = DOPANT_NAMES.find((d) => e.toLowerCase().startsWith(d));
+    return label === undefined || label === dopant;
+  });
+}
+
 export function capital(s: string): string {
   return s.charAt(0).toUpperCase() + s.slice(1);
 }
@@ -121,7 +131,7 @@ export function conversionReply(
     problems: [...(parts.extraProblems ?? []), ...r.problems],
     ...(parts.cautions ? { cautions: parts.cautions } : {}),
     derivation: {
-      equations: [...(parts.extraEquations ?? []), ...r.model.equations, 'μ = 1 / (q·N·ρ)'],
+      equations: [...(parts.extraEquations ?? []), ...equationsFor(r.model, r.dopant), 'μ = 1 / (q·N·ρ)'],
       parameters: [...(parts.extraParameters ?? []), ...parameterRows(r.model.parameters(r.dopant))],
       steps: [
         ...(parts.extraSteps ?? []),

@@ -10,7 +10,7 @@ export const WhyRequest = z.object({ resultId: z.string().regex(/^r-[0-9a-f]{4,1
 export type WhyRequest = z.infer<typeof WhyRequest>;
 
 function show(v: number | string): string {
-  return typeof v === 'number' ? formatNumber(v, { sigFigs: 6 }) : v;
+  return typeof v === 'number' ? formatNumber(v, { sigFigs: 6, trim: true }) : v;
 }
 
 export function derivationSections(r: ReplyOk): ReplySection[] {
@@ -76,7 +76,7 @@ export const whyCommand = defineCommand<WhyRequest>({
       command: 'why',
       title: `How ${r.id} was worked out: ${r.title}`,
       values: r.values,
-      inputs: r.inputs,
+      // inputs are shown in the "Inputs as understood" table below
       ...(r.model ? { model: r.model } : {}),
       warnings: r.warnings,
       cautions: r.cautions,

@@ -9,6 +9,8 @@ const SUPER: Record<string, string> = {
 
 export interface FormatOptions {
   readonly sigFigs?: number;
+  /** Drop trailing zeros of the mantissa (for published parameters: 54.56, not 54.5600). */
+  readonly trim?: boolean;
   /** 'unicode': 1.33×10¹⁵ (console, Slack, Teams); 'ascii': 1.33e15 (logs, plain fallbacks). */
   readonly style?: 'unicode' | 'ascii';
 }
@@ -21,9 +23,11 @@ export function formatNumber(value: number, options: FormatOptions = {}): string
   const abs = Math.abs(value);
   if (abs >= 1e-3 && abs < 1e4) {
     const s = value.toPrecision(sig);
-    return s.includes('e') ? Number(s).toString() : s;
+    if (s.includes('e') || options.trim) return Number(s).toString();
+    return s;
   }
-  const [mantissa, exponent] = value.toExponential(sig - 1).split('e') as [string, string];
+  const [rawMantissa, exponent] = value.toExponential(sig - 1).split('e') as [string, string];
+  const mantissa = options.trim ? String(Number(rawMantissa)) : rawMantissa;
   const exp = String(Number(exponent));
   if (options.style === 'ascii') return `${mantissa}e${exp}`;
   return `${mantissa}×10${[...exp].map((c) => SUPER[c] ?? c).join('')}`;
