@@ -112,7 +112,7 @@ function layerMobility(p: Prepared, diffused: Dopant, background: Dopant, nDiff:
   return p.donorDiffused ? mu.electronCm2PerVs : mu.holeCm2PerVs;
 }
 
-interface SheetKernel {
+export interface SheetKernel {
   readonly sheetConductanceS: number;
   readonly lengthCm: number;
   readonly relativeError: number;
@@ -120,19 +120,29 @@ interface SheetKernel {
   readonly converged: boolean;
 }
 
-/** Kernel: sheet conductance for a surface concentration. Never throws; NaN when Cs ≤ N_B. */
-function sheetConductance(p: Prepared, g: LayerGeometry, cs: number): SheetKernel {
-  const nb = g.backgroundDensityPerCm3;
-  const xj = g.junctionDepthCm;
-  const l = p.profile.lengthCm(cs, nb, xj);
+/**
+ * Kernel: sheet conductance G_s = ∫₀^xj q·μ·N_net dx of a profile, for any local mobility
+ * μ(N_diffused, N_background). Never throws; NaN conductance when Cs ≤ N_B (no junction).
+ */
+export function layerSheetConductance(
+  profile: ProfileDescriptor,
+  surfaceConcentrationPerCm3: number,
+  backgroundDensityPerCm3: number,
+  junctionDepthCm: number,
+  mobilityCm2PerVs: (diffusedPerCm3: number, backgroundPerCm3: number) => number,
+): SheetKernel {
+  const cs = surfaceConcentrationPerCm3;
+  const nb = backgroundDensityPerCm3;
+  const xj = junctionDepthCm;
+  const l = profile.lengthCm(cs, nb, xj);
   if (!(l > 0) || !Number.isFinite(l)) {
     return { sheetConductanceS: Number.NaN, lengthCm: l, relativeError: Number.NaN, evaluations: 0, converged: false };
   }
   const integrand = (x: number) => {
-    const nDiff = p.profile.densityPerCm3(cs, l, x);
+    const nDiff = profile.densityPerCm3(cs, l, x);
     const net = nDiff - nb;
     if (!(net > 0)) return 0;
-    return ELEMENTARY_CHARGE_C * layerMobility(p, g.dopant, g.backgroundDopant, nDiff, nb) * net;
+    return ELEMENTARY_CHARGE_C * mobilityCm2PerVs(nDiff, nb) * net;
   };
   const r = integrateAdaptive(integrand, 0, xj, { relTolerance: LAYER_INTEGRATION_REL_TOLERANCE, maxIntervals: 400 });
   return {
@@ -142,6 +152,12 @@ function sheetConductance(p: Prepared, g: LayerGeometry, cs: number): SheetKerne
     evaluations: r.evaluations,
     converged: r.converged,
   };
+}
+
+function sheetConductance(p: Prepared, g: LayerGeometry, cs: number): SheetKernel {
+  return layerSheetConductance(p.profile, cs, g.backgroundDensityPerCm3, g.junctionDepthCm, (nDiff, nBg) =>
+    layerMobility(p, g.dopant, g.backgroundDopant, nDiff, nBg),
+  );
 }
 
 function prepare(g: LayerGeometry): Outcome<Prepared> {
