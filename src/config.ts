@@ -51,8 +51,7 @@ export const BaseEnv = z
     DATABASE_PATH: z.string().default('./data/shiftprobe.db'),
     PORT: z
       .string()
-      .regex(/^\d{1,5}$/, { error: 'PORT must be a whole number from 0 to 65535, e.g. 3000' })
-      .refine((s) => Number(s) <= 65535, { error: 'PORT must be a whole number from 0 to 65535, e.g. 3000' })
+      .refine((s) => /^\d{1,5}$/.test(s) && Number(s) <= 65535, { error: 'PORT must be a whole number from 0 to 65535, e.g. 3000' })
       .default('3000'),
     HOST: z
       .string()
@@ -204,6 +203,7 @@ export function loadConfig(env: Environment): ConfigResult {
     }
     for (const issue of parsed.error.issues) {
       const variable = String(issue.path[0] ?? key);
+      if (problems.some((p) => p.variable === variable)) continue; // one message per variable
       const present = clean[variable] !== undefined;
       problems.push({
         variable,

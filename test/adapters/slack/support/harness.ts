@@ -6,7 +6,7 @@
 import { Writable } from 'node:stream';
 import { openServices, type Services } from '../../../../src/app.js';
 import { loadConfig } from '../../../../src/config.js';
-import { startSlack, type Handler, type SlackRuntime } from '../../../../src/adapters/slack/index.js';
+import { startSlack, type Handler, type SlackDeps, type SlackRuntime } from '../../../../src/adapters/slack/index.js';
 import type { FakeSlack } from './fake-slack.js';
 
 /** Invented credentials, shaped like real ones (never a real workspace's). */
@@ -35,6 +35,8 @@ export interface TestAppOptions {
   readonly env?: Record<string, string>;
   /** Slash-command ack deadline (default 2000 ms). */
   readonly ackDeadlineMs?: number;
+  /** Any other adapter dependency to replace (storeHealthy, fetch …). */
+  readonly overrides?: Partial<SlackDeps>;
 }
 
 export async function startTestApp(options: TestAppOptions): Promise<TestApp> {
@@ -71,9 +73,12 @@ export async function startTestApp(options: TestAppOptions): Promise<TestApp> {
     stopSignal,
     onReady: ready,
     ...(options.handle ? { handle: options.handle } : {}),
-    ...(options.ackDeadlineMs !== undefined ? { overrides: { ackDeadlineMs: options.ackDeadlineMs } } : {}),
+    overrides: { ...options.overrides, ...(options.ackDeadlineMs !== undefined ? { ackDeadlineMs: options.ackDeadlineMs } : {}) },
   });
-  const started = await Promise.race([up, running.then((code) => Promise.reject(new Error(`startSlack exited with ${code}: ${logs.join('\n')}`)))]);
+  const started = await Promise.race([
+    up,
+    running.then((code) => Promise.reject(Object.assign(new Error(`startSlack exited with ${code}: ${logs.join('\n')}`), { exitCode: code, logs }))),
+  ]);
   const url = `http://127.0.0.1:${started.port}`;
   return {
     url,
