@@ -49,6 +49,17 @@ export class Args {
     return next.raw;
   }
 
+  /** Everything after one of `keys`, as typed, consuming it all ("because re-measured on the referee tool"). */
+  rest(keys: readonly string[]): string | undefined {
+    const i = this.findWord(keys);
+    if (i < 0) return undefined;
+    for (let j = i; j < this.tokens.length; j++) this.used[j] = true;
+    return this.tokens
+      .slice(i + 1)
+      .map((t) => t.raw)
+      .join(' ');
+  }
+
   /** A flag word is present ("epi"). */
   flag(keys: readonly string[]): boolean {
     const i = this.findWord(keys);

@@ -2,6 +2,7 @@
  * What a command needs from the world, injected so tests use a fixed clock, fixed ids,
  * in-memory stores and no network.
  */
+import type { LotService } from '../lots/service.js';
 import type { ReplyOk } from '../reply/reply.js';
 
 export type Surface = 'console' | 'cli' | 'slack' | 'teams';
@@ -30,6 +31,8 @@ export interface HandleContext {
   readonly results: ResultStore;
   /** Per-conversation memory: the last result id, for a bare `why`. */
   readonly session: { lastResultId?: string };
+  /** Lot records (record, lot, flags, clear, digest); absent where no lot store is wired. */
+  readonly lots?: LotService;
 }
 
 export class MemoryResultStore implements ResultStore {
