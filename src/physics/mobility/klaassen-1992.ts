@@ -53,6 +53,7 @@
  * authors' comparisons gives reasonable agreement from about 100 to 450 K, best at 300 K [V,
  * secondary]; we warn outside 100–450 K. Low field only; no surface or high-field terms.
  */
+import { brentRoot } from '../numeric/brent.js';
 import { DOPANT_TYPE, type Dopant, type Parameter, type Range } from '../types.js';
 import {
   majorityMobilityCm2PerVs,
@@ -122,31 +123,34 @@ function gRaw(p: number, tRatio: number, massRatio: number): number {
   );
 }
 
-/** dG/dP, for locating G's minimum. */
-function gSlope(p: number, tRatio: number, massRatio: number): number {
+/**
+ * P at which G is smallest: the root of dG/dP in log10 P, by Brent's method (cached per
+ * temperature, one cache per mass ratio). dG/dP = s1·s3·a/(s2 + a·P)^(s3+1) − s5·s6/(b^s6·P^(s6+1)),
+ * a = ((T/300)·(m0/m))^s4, b = ((300/T)·(m/m0))^s7.
+ */
+const minimumCache = new Map<number, Map<number, number>>();
+function gMinimumP(tRatio: number, massRatio: number): number {
+  let byT = minimumCache.get(massRatio);
+  if (!byT) {
+    byT = new Map();
+    minimumCache.set(massRatio, byT);
+  }
+  const cached = byT.get(tRatio);
+  if (cached !== undefined) return cached;
   const s = KLAASSEN_1992.s;
   const a = Math.pow(tRatio / massRatio, s[3]);
-  const b = Math.pow(massRatio / tRatio, s[6]);
-  return (s[0] * s[2] * a) / Math.pow(s[1] + a * p, s[2] + 1) - (s[4] * s[5]) / (Math.pow(b, s[5]) * Math.pow(p, s[5] + 1));
-}
-
-/** P at which G is smallest, by bisection on the slope in log P (cached per temperature and mass). */
-const minimumCache = new Map<string, number>();
-function gMinimumP(tRatio: number, massRatio: number): number {
-  const key = `${tRatio}|${massRatio}`;
-  const cached = minimumCache.get(key);
-  if (cached !== undefined) return cached;
-  let lo = -8; // log10 P
-  let hi = 4;
-  if (gSlope(10 ** lo, tRatio, massRatio) > 0) return 10 ** lo;
-  for (let k = 0; k < 80; k++) {
-    const mid = 0.5 * (lo + hi);
-    if (gSlope(10 ** mid, tRatio, massRatio) < 0) lo = mid;
-    else hi = mid;
-  }
-  const pMin = 10 ** (0.5 * (lo + hi));
-  if (minimumCache.size > 256) minimumCache.clear();
-  minimumCache.set(key, pMin);
+  const bPow = Math.pow(Math.pow(massRatio / tRatio, s[6]), s[5]);
+  const c1 = s[0] * s[2] * a;
+  const c2 = (s[4] * s[5]) / bPow;
+  // Sign of the slope, scaled to stay O(1): positive above the minimum.
+  const slope = (u: number) => {
+    const p = Math.pow(10, u);
+    return Math.log(c1 / Math.pow(s[1] + a * p, s[2] + 1)) - Math.log(c2 / Math.pow(p, s[5] + 1));
+  };
+  const r = brentRoot(slope, -8, 4, { xTolerance: 1e-9 });
+  const pMin = r.converged ? Math.pow(10, r.x) : r.status === 'no_sign_change' && slope(-8) > 0 ? 1e-8 : 1e4;
+  if (byT.size > 512) byT.clear();
+  byT.set(tRatio, pMin);
   return pMin;
 }
 
@@ -187,7 +191,8 @@ function mobility(side: CarrierSide, carrierSumPerCm3: number, temperatureK: num
   const invCw = Math.pow(nSc, 2 / 3) / (k.cwCoefficient * tRatio * tRatio);
   const invBh = carrierSumPerCm3 / (k.bhCoefficientPerCm3 * side.massRatio * tRatio * tRatio);
   const p = 1 / (k.fCW * invCw + k.fBH * invBh);
-  const g = klaassenG(p, temperatureK, side.massRatio);
+  // G scales the scattering by the opposite-kind impurity only: skip it when there is none.
+  const g = side.oppositeImpurity > 0 ? klaassenG(p, temperatureK, side.massRatio) : 1;
   const f = klaassenF(p, side.massRatio / side.otherMassRatio);
   const nScEff = side.sameImpurity + g * side.oppositeImpurity + side.otherCarrier / f;
   if (!(nScEff > 0)) return lattice;
