@@ -45,7 +45,7 @@ export function invertResistivityForDensity(
   }
   const lnTarget = Math.log(targetResistivityOhmCm);
   const r = brentRoot(
-    (u) => Math.log(resistivityOfDensity(Math.pow(10, u))) - lnTarget,
+    (u) => Math.log(resistivityOfDensity(Math.exp(u * Math.LN10))) - lnTarget,
     bracketLog10.min,
     bracketLog10.max,
     { xTolerance: 1e-12, maxIterations: 200 },

@@ -44,18 +44,19 @@ export const F723_PHOSPHORUS = {
   nToRho: { a: [-3.0769, 2.2108, -0.62272, 0.057501], b: [-0.68157, 0.19833, -0.018376] },
 } as const;
 
+// The boron kernels write the coefficients as literals (the hot path of every boron reading);
+// they equal F723_BORON above, which `why` shows, and a test checks that they agree.
+
 /** Kernel: boron, ρ → N (cm⁻³). */
 export function f723BoronDensityPerCm3(resistivityOhmCm: number): number {
-  const { a, b, c, d } = F723_BORON.rhoToN;
   const r = resistivityOhmCm;
-  return a / r + b / (r * (1 + Math.pow(c * r, d)));
+  return 1.33e16 / r + 1.082e17 / (r * (1 + Math.pow(54.56 * r, 1.105)));
 }
 
 /** Kernel: boron, N → ρ (Ω·cm). */
 export function f723BoronResistivityOhmCm(dopantDensityPerCm3: number): number {
-  const { a, b, c, d } = F723_BORON.nToRho;
   const n = dopantDensityPerCm3;
-  return a / n + b / (n * (1 + Math.pow(c * n, d)));
+  return 1.305e16 / n + 1.133e17 / (n * (1 + Math.pow(2.58e-19 * n, -0.737)));
 }
 
 function rational(
@@ -81,6 +82,8 @@ export function f723PhosphorusResistivityOhmCm(dopantDensityPerCm3: number): num
   const z = rational(Math.log10(dopantDensityPerCm3) - 16, a, b);
   return (F723_PHOSPHORUS.scale / dopantDensityPerCm3) * Math.pow(10, z);
 }
+
+const NO_STANDING_PROBLEMS: readonly Problem[] = Object.freeze([]);
 
 export const F723_CITATION =
   'ASTM F723-99 (SEMI MF723), after W. R. Thurber, R. L. Mattis, Y. M. Liu, J. J. Filliben, NBS SP 400-64 (1981) and J. Electrochem. Soc. 127 (1980)';
@@ -181,6 +184,6 @@ export const f723: RegisteredConversionModel = {
     return Number.NaN;
   },
   standingProblems(): readonly Problem[] {
-    return [];
+    return NO_STANDING_PROBLEMS;
   },
 };

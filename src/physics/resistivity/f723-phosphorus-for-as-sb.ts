@@ -28,6 +28,19 @@ const N: Range = { min: f723PhosphorusDensityPerCm3(P_RHO.max), max: F723_AS_SB_
 const DOMAIN: ConversionDomain = { resistivityOhmCm: widen(RHO, 10), dopantDensityPerCm3: widen(N, 10) };
 const ID = 'f723-phosphorus-for-as-sb';
 
+function substitute(dopant: Dopant): readonly Problem[] {
+  return Object.freeze([
+    {
+      code: 'substitute_model',
+      model: ID,
+      forDopant: dopant,
+      reason: 'ASTM F723 allows its phosphorus conversion for As and Sb below solid solubility',
+    } as const,
+  ]);
+}
+const STANDING_AS = substitute('arsenic');
+const STANDING_SB = substitute('antimony');
+
 export const f723PhosphorusForArsenicAntimony: RegisteredConversionModel = {
   id: ID,
   name: 'ASTM F723 phosphorus conversion used for As and Sb',
@@ -56,13 +69,6 @@ export const f723PhosphorusForArsenicAntimony: RegisteredConversionModel = {
     return dopantDensityPerCm3 > 0 ? f723PhosphorusResistivityOhmCm(dopantDensityPerCm3) : Number.NaN;
   },
   standingProblems(dopant: Dopant): readonly Problem[] {
-    return [
-      {
-        code: 'substitute_model',
-        model: ID,
-        forDopant: dopant,
-        reason: 'ASTM F723 allows its phosphorus conversion for As and Sb below solid solubility',
-      },
-    ];
+    return dopant === 'antimony' ? STANDING_SB : STANDING_AS;
   },
 };

@@ -36,6 +36,8 @@ export interface MobilityConversionOptions {
   readonly standingProblems?: (dopant: Dopant) => readonly Problem[];
 }
 
+const NONE: readonly Problem[] = Object.freeze([]);
+
 function intersect(a: Range, b: Range): Range {
   return { min: Math.max(a.min, b.min), max: Math.min(a.max, b.max) };
 }
@@ -48,6 +50,28 @@ export function conversionFromMobility(
   const mapDopant = options.mobilityDopant ?? ((d: Dopant) => d);
   const mu = (n: number, d: Dopant) => mobility.mobilityCm2PerVs(n, mapDopant(d));
   const rhoOf = (n: number, d: Dopant) => resistivityFromMobilityOhmCm(n, mu(n, d));
+
+  // Standing problems per dopant, computed once (results share them, read-only).
+  const standing: Partial<Record<Dopant, readonly Problem[]>> = {};
+  for (const d of dopants) standing[d] = Object.freeze([...(options.standingProblems?.(d) ?? [])]);
+
+  // Bounds of ρ·N = 1/(q·μ(N)) over the bracket, sampled every 0.05 decade and widened 5 %:
+  // the root of ρ(N) = ρt lies in [min/ρt, max/ρt]. Used only to narrow Brent's bracket; a
+  // bracket without a sign change falls back to the full one, so a loose bound costs nothing.
+  const productBounds: Partial<Record<Dopant, Range>> = {};
+  for (const d of dopants) {
+    let min = Number.POSITIVE_INFINITY;
+    let max = 0;
+    for (let u = DENSITY_BRACKET_LOG10_PER_CM3.min; u <= DENSITY_BRACKET_LOG10_PER_CM3.max + 1e-9; u += 0.05) {
+      const n = Math.pow(10, u);
+      const g = rhoOf(n, d) * n;
+      if (Number.isFinite(g) && g > 0) {
+        min = Math.min(min, g);
+        max = Math.max(max, g);
+      }
+    }
+    if (max > 0) productBounds[d] = { min: min / 1.05, max: max * 1.05 };
+  }
 
   const validity: Partial<Record<Dopant, { resistivityOhmCm: Range; dopantDensityPerCm3: Range }>> = {};
   const domain: Partial<Record<Dopant, ConversionDomain>> = {};
@@ -88,7 +112,18 @@ export function conversionFromMobility(
     },
     dopantDensityFromResistivity(resistivityOhmCm: number, dopant: Dopant): number {
       if (!(resistivityOhmCm > 0)) return Number.NaN;
-      const r = invertResistivityForDensity((n) => rhoOf(n, dopant), resistivityOhmCm);
+      const f = (n: number) => rhoOf(n, dopant);
+      // Narrow bracket first (N = g(N)/ρ with g = ρ·N = 1/(qμ) bounded); full bracket if that fails.
+      const g = productBounds[dopant];
+      if (g) {
+        const lo = Math.max(DENSITY_BRACKET_LOG10_PER_CM3.min, Math.log10(g.min / resistivityOhmCm));
+        const hi = Math.min(DENSITY_BRACKET_LOG10_PER_CM3.max, Math.log10(g.max / resistivityOhmCm));
+        if (lo < hi) {
+          const narrow = invertResistivityForDensity(f, resistivityOhmCm, { min: lo, max: hi });
+          if (narrow.converged) return narrow.dopantDensityPerCm3;
+        }
+      }
+      const r = invertResistivityForDensity(f, resistivityOhmCm);
       return r.converged ? r.dopantDensityPerCm3 : Number.NaN;
     },
     resistivityFromDopantDensity(dopantDensityPerCm3: number, dopant: Dopant): number {
@@ -99,7 +134,7 @@ export function conversionFromMobility(
       return mu(dopantDensityPerCm3, dopant);
     },
     standingProblems(dopant: Dopant): readonly Problem[] {
-      return options.standingProblems?.(dopant) ?? [];
+      return standing[dopant] ?? NONE;
     },
   };
 }

@@ -28,10 +28,21 @@ function normalise(s: string): string {
   return s.trim().toLowerCase().replace(/[\s_–—]+/g, '-');
 }
 
+let index: Map<string, RegisteredConversionModel> | undefined;
+function lookup(): Map<string, RegisteredConversionModel> {
+  // Built on first use (after every module has registered its models), ids before aliases.
+  if (!index || index.size === 0) {
+    index = new Map();
+    for (const m of CONVERSION_MODELS) index.set(m.id, m);
+    for (const m of CONVERSION_MODELS) for (const a of m.aliases) if (!index.has(a)) index.set(a, m);
+  }
+  return index;
+}
+
 /** Look a model up by id or alias (case-insensitive; spaces and underscores read as '-'). */
 export function findConversionModel(id: string): RegisteredConversionModel | undefined {
-  const key = normalise(id);
-  return CONVERSION_MODELS.find((m) => m.id === key || m.aliases.includes(key));
+  const map = lookup();
+  return map.get(id) ?? map.get(normalise(id));
 }
 
 /** Ids and aliases, for "did you mean" and refusals. */
@@ -48,23 +59,23 @@ export function defaultConversionModel(
   dopant: Dopant,
   densityHintPerCm3?: number,
 ): { model: RegisteredConversionModel; problems: Problem[] } {
-  let model: RegisteredConversionModel;
+  const model = defaultModelFor(dopant, densityHintPerCm3);
+  return { model, problems: [...model.standingProblems(dopant)] };
+}
+
+/** The default model alone (no allocation: the conversion hot path uses this). */
+export function defaultModelFor(dopant: Dopant, densityHintPerCm3?: number): RegisteredConversionModel {
   switch (dopant) {
     case 'boron':
     case 'phosphorus':
-      model = f723;
-      break;
+      return f723;
     case 'arsenic':
-      model = masetti1983Conversion;
-      break;
+      return masetti1983Conversion;
     case 'antimony':
-      model =
-        densityHintPerCm3 !== undefined && densityHintPerCm3 > F723_AS_SB_DENSITY_LIMIT_PER_CM3
-          ? masettiArsenicForAntimony
-          : f723PhosphorusForArsenicAntimony;
-      break;
+      return densityHintPerCm3 !== undefined && densityHintPerCm3 > F723_AS_SB_DENSITY_LIMIT_PER_CM3
+        ? masettiArsenicForAntimony
+        : f723PhosphorusForArsenicAntimony;
   }
-  return { model, problems: [...model.standingProblems(dopant)] };
 }
 
 /** Threshold between the two antimony defaults, cm⁻³. */
