@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
+  F723_BORON,
   F723_SELF_CONSISTENCY,
   f723BoronDensityPerCm3,
   f723BoronResistivityOhmCm,
@@ -47,6 +48,17 @@ describe('ASTM F723 (Thurber) conversions', () => {
   it('phosphorus ρ→N→ρ stays within 5 % over 2.00–2.05e-4 Ω·cm (4.74 % worst: see the finding above)', () => {
     for (let rho = 2e-4; rho <= 2.05e-4; rho += 1e-7) {
       expect(f723PhosphorusResistivityOhmCm(f723PhosphorusDensityPerCm3(rho))).toBeWithinRelative(rho, 0.05);
+    }
+  });
+  // The boron kernels write the coefficients as literals for speed: they must equal the table
+  // `why` shows (ASTM F723-99 coefficients, REFERENCES.md). Tight, 1e-14.
+  it('boron kernels use exactly the tabulated F723 coefficients', () => {
+    const { rhoToN: a, nToRho: b } = F723_BORON;
+    for (const rho of [1e-4, 0.013, 1, 8.2, 1e4]) {
+      expect(f723BoronDensityPerCm3(rho)).toBeWithinRelative(a.a / rho + a.b / (rho * (1 + Math.pow(a.c * rho, a.d))), 1e-14);
+    }
+    for (const n of [1e12, 3e15, 1e18, 1e21]) {
+      expect(f723BoronResistivityOhmCm(n)).toBeWithinRelative(b.a / n + b.b / (n * (1 + Math.pow(b.c * n, b.d))), 1e-14);
     }
   });
   it('states the standard figures in its descriptor', () => {
