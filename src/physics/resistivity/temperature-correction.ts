@@ -147,7 +147,8 @@ export function correctResistivityToReference(req: TemperatureCorrectionRequest)
     }
     intrinsic = found;
   } else {
-    intrinsic = defaultIntrinsicModel('Si');
+    // One model for both temperatures: the fit covering the reading's temperature.
+    intrinsic = defaultIntrinsicModel('Si', T);
   }
 
   const niAt = (t: number) => intrinsic.intrinsicDensityPerCm3('Si', t);

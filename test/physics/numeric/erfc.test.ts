@@ -45,9 +45,16 @@ describe('erf, erfc and the inverse', () => {
     expect(erfc(-0.7)).toBeWithinRelative(2 - erfc(0.7), 1e-15);
   });
 
-  it('erfcInverse inverts erfc to 1e-13 over 1e-300 to 1.9 (property)', () => {
+  // Round trips, with tolerances set by conditioning: y = erfc(x) is recovered to 1e-13 down to
+  // 1e-20; deeper in the tail d ln y/dx ≈ −2x, so a last-bit error in x shows as ~2x²·1e-16 in y.
+  it('erfcInverse inverts erfc: x to 1e-13 over 0–26, y to 1e-13 down to 1e-20 (property)', () => {
     fc.assert(
-      fc.property(fc.double({ min: -300, max: Math.log10(1.9), noNaN: true }), (u) => {
+      fc.property(fc.double({ min: 0, max: 26, noNaN: true }), (x) => {
+        expect(Math.abs(erfcInverse(erfc(x)) - x)).toBeLessThanOrEqual(1e-13 * Math.max(1, x));
+      }),
+    );
+    fc.assert(
+      fc.property(fc.double({ min: -20, max: Math.log10(1.9), noNaN: true }), (u) => {
         const y = Math.pow(10, u);
         expect(erfc(erfcInverse(y))).toBeWithinRelative(y, 1e-13);
       }),
