@@ -31,3 +31,6 @@ export function diameterCorrectionFactor(diameterOverSpacing: number): number {
 
 export const DIAMETER_FACTOR_CITATION =
   'F. M. Smits, Bell Syst. Tech. J. 37, 711 (1958); tabulated in NBS Technical Note 199 (Swartzendruber, 1964)';
+
+/** The equation as the reply's `why` should state it. */
+export const DIAMETER_FACTOR_EQUATION = 'Rs = C·V/I, C(d/s) = π / (ln2 + ln(((d/s)² + 3)/((d/s)² − 3))); C → π/ln2 for d ≫ s';

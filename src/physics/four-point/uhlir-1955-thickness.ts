@@ -94,3 +94,9 @@ export function thicknessCorrectionFactorClosedForm(thicknessOverSpacing: number
 
 export const THICKNESS_FACTOR_CITATION =
   'A. Uhlir Jr., Bell Syst. Tech. J. 34, 105 (1955) (method of images); F. M. Smits, Bell Syst. Tech. J. 37, 711 (1958)';
+
+/** The equations as the reply's `why` should state them. */
+export const THICKNESS_FACTOR_EQUATIONS: readonly string[] = [
+  'ρ = Rs·t·F(t/s); F = ln2 / (τ·(½ + 2·Σₙ [1/√(1 + (2nτ)²) − 1/√(4 + (2nτ)²)])), τ = t/s (images in both faces, insulating bottom)',
+  'F → 1 for t ≪ s; F·(t/s) → 2·ln2 for t ≫ s (ρ → 2πs·V/I)',
+];
