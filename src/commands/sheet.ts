@@ -4,6 +4,8 @@
  */
 import { z } from 'zod';
 import { fourPointProbe } from '../physics/four-point/sheet.js';
+import { DIAMETER_FACTOR_CITATION, DIAMETER_FACTOR_EQUATION } from '../physics/four-point/smits-1958-diameter.js';
+import { THICKNESS_FACTOR_CITATION, THICKNESS_FACTOR_EQUATIONS } from '../physics/four-point/uhlir-1955-thickness.js';
 import { errorReply, okReply } from '../reply/build.js';
 import { ELECTRICAL_HAZARD } from '../reply/cautions.js';
 import { formatNumber } from '../reply/format.js';
@@ -122,19 +124,13 @@ export const sheetCommand = defineCommand<SheetRequest>({
     const steps = [
       req.voltageV !== undefined
         ? `Rs = C·V/I = ${formatNumber(r.diameterFactor, { sigFigs: 5 })} × ${formatNumber(req.voltageV, { sigFigs: 6 })} V / ${formatNumber(req.currentA ?? Number.NaN, { sigFigs: 6 })} A = ${formatNumber(r.sheetResistanceOhmPerSq, { sigFigs: 6 })} Ω/□`
-        : `Rs = ${formatNumber(r.sheetResistanceOhmPerSq, { sigFigs: 6 })} Ω/□ (diameter factor ${formatNumber(r.diameterFactor, { sigFigs: 5 })} relative to π/ln2 applied)`,
+        : `Rs = Rs as read × C/(π/ln2) = ${formatNumber(req.sheetResistanceOhmPerSq ?? Number.NaN, { sigFigs: 6 })} × ${formatNumber(r.diameterRatioFactor, { sigFigs: 5 })} = ${formatNumber(r.sheetResistanceOhmPerSq, { sigFigs: 6 })} Ω/□`,
       ...(r.resistivityOhmCm !== undefined
         ? [`ρ = Rs·t·F = ${formatNumber(r.sheetResistanceOhmPerSq, { sigFigs: 6 })} × ${formatNumber(req.thicknessCm ?? Number.NaN, { sigFigs: 6 })} cm × ${formatNumber(r.thicknessFactor, { sigFigs: 5 })} = ${formatNumber(r.resistivityOhmCm, { sigFigs: 6 })} Ω·cm`]
         : []),
     ];
-    const geometryEquations = [
-      'Rs = C(d/s)·V/I, C = π / (ln2 + ln(((d/s)² + 3)/((d/s)² − 3))) → π/ln2 for d ≫ s (Smits 1958)',
-      'ρ = Rs·t·F(t/s), F = ln2 / ln(sinh(t/s) / sinh(t/2s)) → 1 for t ≪ s (Uhlir 1955)',
-    ];
-    const geometrySources = [
-      'F. M. Smits, Bell Syst. Tech. J. 37, 711 (1958)',
-      'A. Uhlir Jr., Bell Syst. Tech. J. 34, 105 (1955)',
-    ];
+    const geometryEquations = [DIAMETER_FACTOR_EQUATION, ...THICKNESS_FACTOR_EQUATIONS];
+    const geometrySources = [DIAMETER_FACTOR_CITATION, THICKNESS_FACTOR_CITATION];
     if (r.conversion) {
       return conversionReply(identity(ctx), r.conversion, {
         command: 'sheet',
