@@ -37,6 +37,30 @@ export class Args {
     return this.read(next, dimension, key);
   }
 
+  /**
+   * The value after one of `keys` and, when the token after that value is a word `map` knows,
+   * that word too ("on 1e15 p" → 1e15 cm⁻³ and p). Issue 5 (layer backgrounds).
+   */
+  keyedWithWord<T>(
+    keys: readonly string[],
+    dimension: Dimension,
+    map: Readonly<Record<string, T>>,
+  ): { quantity: Quantity; word?: { value: T; raw: string } } | undefined {
+    const i = this.findWord(keys);
+    if (i < 0) return undefined;
+    const quantity = this.keyed(keys, dimension);
+    if (!quantity) return undefined;
+    const after = this.tokens[i + 2];
+    if (after && after.kind === 'word' && !this.used[i + 2]) {
+      const hit = lookup(map, after.text);
+      if (hit !== undefined) {
+        this.used[i + 2] = true;
+        return { quantity, word: { value: hit, raw: after.raw } };
+      }
+    }
+    return { quantity };
+  }
+
   /** The word after one of `keys` ("model masetti", "expect n"). */
   keyedWord(keys: readonly string[]): string | undefined {
     const i = this.findWord(keys);
@@ -74,6 +98,20 @@ export class Args {
       const t = this.tokens[i]!;
       if (this.used[i] || t.kind !== 'word') continue;
       const hit = lookup(map, t.text);
+      if (hit !== undefined) {
+        this.used[i] = true;
+        return { value: hit, raw: t.raw };
+      }
+    }
+    return undefined;
+  }
+
+  /** The first unused token of any kind whose text as typed `map` knows ("24h", "7d"), mapped. */
+  literal<T>(map: Readonly<Record<string, T>>): { value: T; raw: string } | undefined {
+    for (let i = 0; i < this.tokens.length; i++) {
+      const t = this.tokens[i]!;
+      if (this.used[i]) continue;
+      const hit = lookup(map, t.raw);
       if (hit !== undefined) {
         this.used[i] = true;
         return { value: hit, raw: t.raw };

@@ -49,6 +49,10 @@ const QUANTITY_UNITS: Record<string, string> = {
   dopantDensityPerCm3: 'cm⁻³',
   temperatureK: 'K',
   sheetResistanceOhmPerSq: 'Ω/□',
+  referenceTemperatureK: 'K',
+  surfaceConcentrationPerCm3: 'cm⁻³',
+  backgroundDensityPerCm3: 'cm⁻³',
+  netDopingPerCm3: 'cm⁻³',
 };
 
 function describeInput(quantity: string, value: number): string {
@@ -93,6 +97,14 @@ export function refusalMessage(r: Refusal): string {
       return `The ${r.factor} correction does not exist for a ratio of ${formatNumber(r.ratio)} (it needs more than ${formatNumber(r.min)}); check the probe spacing and the wafer size.`;
     case 'missing_input':
       return `The ${r.quantity} needs ${r.needs.join(' and ')}.`;
+    case 'not_covered':
+      return `That needs ${r.quantity === 'ionizationEnergyEv' ? 'dopant ionization energies' : r.quantity}, which are covered for ${r.covered.map((m) => MATERIAL_LABEL[m]).join(' and ')} only, not ${MATERIAL_LABEL[r.material]}.`;
+    case 'no_junction':
+      return `A surface concentration of ${formatNumber(r.surfaceConcentrationPerCm3)} cm⁻³ is not above the background (${formatNumber(r.backgroundDensityPerCm3)} cm⁻³): there is no junction. Check Cs and the background.`;
+    case 'dopant_pairing':
+      return `A diffused layer of ${r.dopant} on a ${r.background} background is not a junction: the layer and the background must be of opposite types (n on p, or p on n).`;
+    case 'no_solution':
+      return `The solver for the ${r.quantity} did not converge with the ${r.model} model (${r.status}); no value is given rather than a wrong one. Check the inputs.`;
     default: {
       const any = r as unknown as Record<string, unknown>;
       return typeof any['message'] === 'string' ? any['message'] : `The request was refused (${String(any['code'])}).`;

@@ -14,6 +14,13 @@ const QUANTITY_WORDS: Record<string, { name: string; unit: string }> = {
   thicknessOverSpacing: { name: 'thickness/spacing', unit: '' },
   diameterOverSpacing: { name: 'diameter/spacing', unit: '' },
   intrinsicDensityPerCm3: { name: 'intrinsic density n_i of silicon at 300 K', unit: 'cm⁻³' },
+  // issue 5
+  referenceTemperatureK: { name: 'reference temperature', unit: 'K' },
+  surfaceConcentrationPerCm3: { name: 'surface concentration', unit: 'cm⁻³' },
+  backgroundDensityPerCm3: { name: 'background density', unit: 'cm⁻³' },
+  netDopingPerCm3: { name: 'net doping', unit: 'cm⁻³' },
+  junctionDepthCm: { name: 'junction depth', unit: 'cm' },
+  temperatureCoefficientPerK: { name: 'temperature coefficient', unit: '/K' },
 };
 
 function q(quantity: string, value: number): string {
@@ -50,6 +57,16 @@ export function problemMessage(p: Problem): string {
       return `The often-quoted ${formatNumber(p.outdated)} cm⁻³ for the ${nameOf(p.quantity)} is outdated; the current value is ${formatNumber(p.current)} cm⁻³ (${p.source}).`;
     case 'geometry_limit':
       return `The ${p.factor} correction is outside its useful range (ratio ${formatNumber(p.ratio)}, needs at least ${formatNumber(p.min)}).`;
+    case 'ionization_model_limit':
+      return `At ${formatNumber(p.dopantDensityPerCm3)} cm⁻³ (above ~${formatNumber(p.limitPerCm3)} cm⁻³) the simple ionization model overstates freeze-out: the ionization energy falls with density and the levels merge into a band, so the real ionized fraction is higher than shown.`;
+    case 'degenerate':
+      return `The Fermi level is ${p.separationKT < 0 ? `${formatNumber(-p.separationKT, { sigFigs: 2 })} kT inside` : `${formatNumber(p.separationKT, { sigFigs: 2 })} kT from`} the ${p.band} band edge (within ${formatNumber(p.limitKT)} kT): the material is degenerate and Boltzmann statistics, used here, are not accurate.`;
+    case 'unverified_parameter':
+      return `The ${p.parameter} (${formatNumber(p.value)} ${p.unit}) is from memory, not confirmed against a source (${p.source}); treat the result as an estimate.`;
+    case 'intrinsic_regime':
+      return `n_i (${formatNumber(p.intrinsicDensityPerCm3)} cm⁻³) is comparable with the net doping (${formatNumber(p.netDopingPerCm3)} cm⁻³): at this temperature the carriers are set by temperature, not by the dopants.`;
+    case 'quantity_not_covered':
+      return `The ${nameOf(p.quantity)} is not computed for ${p.material}: only ${p.covered.join(', ')} is covered for it.`;
     case 'other':
       return p.message;
     default:
