@@ -18,6 +18,7 @@ import { resolve } from 'node:path';
 import { inspect } from 'node:util';
 import { parse as parseDotenv } from 'dotenv';
 import { z } from 'zod';
+import { LotsEnv } from './lots/config.js';
 
 export type Environment = Readonly<Record<string, string | undefined>>;
 
@@ -166,6 +167,7 @@ export type SlackConfig = SlackSocketConfig | SlackHttpConfig;
 export const configSections = {
   base: BaseEnv,
   slack: SlackEnv,
+  lots: LotsEnv,
 } as const;
 
 export type Config = { readonly [K in keyof typeof configSections]: z.output<(typeof configSections)[K]> };

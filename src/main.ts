@@ -6,7 +6,8 @@
  *   shiftprobe                      (no command) the local console
  */
 import { dirname, join } from 'node:path';
-import { contextFor, openServices } from './app.js';
+import { contextFor, openServices, StartupError, type Services } from './app.js';
+import { digestReply } from './commands/lots/digest.js';
 import { runConsole } from './adapters/console/console.js';
 import { handle } from './commands/handle.js';
 import { describeConfigProblems, loadConfig, readEnvironment, surfaceOf, type Config } from './config.js';
@@ -49,8 +50,20 @@ export async function main(argv: readonly string[], io: MainIo = process as unkn
   return startConsole(config, io);
 }
 
+/** Open the database and the lot records; a bad spec file stops start-up with its problems. */
+function open(config: Config, io: MainIo): Services | undefined {
+  try {
+    return openServices(config.base.databasePath, { lots: config.lots });
+  } catch (e) {
+    if (!(e instanceof StartupError)) throw e;
+    io.stderr.write(`shiftprobe cannot start: ${e.message}\n`);
+    return undefined;
+  }
+}
+
 async function oneShot(text: string, json: boolean, config: Config, io: MainIo): Promise<number> {
-  const services = openServices(config.base.databasePath);
+  const services = open(config, io);
+  if (!services) return 78;
   try {
     const ctx = contextFor(services, 'cli', { userId: 'cli', channelId: 'cli' }, {});
     const reply = await handle(text, ctx);
@@ -62,7 +75,16 @@ async function oneShot(text: string, json: boolean, config: Config, io: MainIo):
 }
 
 async function startConsole(config: Config, io: MainIo): Promise<number> {
-  const services = openServices(config.base.databasePath);
+  const services = open(config, io);
+  if (!services) return 78;
+  // The daily summary of flagged lots prints in the console at DIGEST_AT.
+  const digest = await services.lots?.startDigest(
+    async (d) => {
+      const reply = digestReply({ id: services.newId(), createdAt: services.now().toISOString() }, d, { demo: services.lots?.catalog.demo ?? false });
+      io.stdout.write(`\n${renderText(reply, { width: io.stdout.columns ?? 88 })}\n\n`);
+    },
+    { channel: 'console', onError: (e) => io.stderr.write(`shiftprobe: the daily summary could not be printed: ${e instanceof Error ? e.message : String(e)}\n`) },
+  );
   try {
     const ctx = contextFor(services, 'console', { userId: 'console', displayName: 'console user', channelId: 'console' }, {});
     await runConsole({
@@ -73,6 +95,7 @@ async function startConsole(config: Config, io: MainIo): Promise<number> {
     });
     return 0;
   } finally {
+    digest?.stop();
     services.close();
   }
 }

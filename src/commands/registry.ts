@@ -11,6 +11,11 @@ import { sheetCommand } from './sheet.js';
 import type { CommandSpec } from './spec.js';
 import { typeCommand } from './type.js';
 import { whyCommand } from './why.js';
+import { clearCommand } from './lots/clear.js';
+import { digestCommand } from './lots/digest.js';
+import { flagsCommand } from './lots/flags.js';
+import { lotCommand } from './lots/lot.js';
+import { recordCommand } from './lots/record.js';
 
 export const COMMANDS: readonly CommandSpec<any>[] = [
   rhoCommand,
@@ -18,6 +23,11 @@ export const COMMANDS: readonly CommandSpec<any>[] = [
   sheetCommand,
   typeCommand,
   niCommand,
+  recordCommand,
+  lotCommand,
+  flagsCommand,
+  clearCommand,
+  digestCommand,
   // (more commands are registered here)
   modelsCommand,
   whyCommand,

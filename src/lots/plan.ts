@@ -4,10 +4,10 @@
  * and the flags the system closes. Pure.
  */
 import { evaluateRecord, type LotError } from './evaluation.js';
-import type { FlagFinding } from './flags.js';
+import { isOpen, type FlagCode, type FlagFinding, type StoredFlag } from './flags.js';
 import type { LotPhysics } from './physics.js';
 import type { RecordRequest } from './readings.js';
-import type { LotState, PlanResult, RecordPlan } from './repository.js';
+import type { ClearPlan, ClearState, LotState, PlanResult, RecordPlan } from './repository.js';
 import type { SpecCatalog } from './spec/schema.js';
 import type { PlaceValue } from './spread.js';
 
@@ -99,4 +99,37 @@ export function planRecord(input: PlanInput, state: LotState): PlanResult<Record
       close,
     },
   };
+}
+
+export type ClearSelector =
+  | { readonly kind: 'id'; readonly flagId: number }
+  | { readonly kind: 'code'; readonly code: FlagCode; readonly wafer?: number; readonly site?: number }
+  | { readonly kind: 'all' };
+
+/** Which open flags a `clear` closes, read inside the write transaction. Pure. */
+export function planClear(lotId: string, sel: ClearSelector, reason: string, state: ClearState): PlanResult<ClearPlan> {
+  if (!state.lot) return { ok: false, error: { code: 'unknown_lot', lotId } };
+  const brief = (f: StoredFlag) => ({ id: f.id, code: f.code, scope: f.scope });
+  const what = sel.kind === 'id' ? `F${sel.flagId}` : sel.kind === 'all' ? 'all' : sel.code.replace(/_/g, ' ');
+  if (sel.kind === 'id') {
+    const f = state.named;
+    if (!f) return { ok: false, error: { code: 'no_such_flag', lotId, what, open: state.openFlags.map(brief) } };
+    if (f.lotId !== lotId) return { ok: false, error: { code: 'flag_other_lot', flagId: f.id, flagLot: f.lotId, lotId } };
+    if (!isOpen(f)) {
+      const c = f.clearance!;
+      return { ok: false, error: { code: 'flag_already_cleared', flagId: f.id, at: c.at, by: c.byUserName ?? c.byUserId } };
+    }
+    return { ok: true, plan: { flagIds: [f.id], reason } };
+  }
+  const candidates =
+    sel.kind === 'all'
+      ? state.openFlags
+      : state.openFlags.filter(
+          (f) => f.code === sel.code && (sel.wafer === undefined || f.wafer === sel.wafer) && (sel.site === undefined || f.site === sel.site),
+        );
+  if (candidates.length === 0) return { ok: false, error: { code: 'no_such_flag', lotId, what, open: state.openFlags.map(brief) } };
+  if (candidates.length > 1 && sel.kind === 'code') {
+    return { ok: false, error: { code: 'ambiguous_flag', lotId, what, candidates: candidates.map(brief) } };
+  }
+  return { ok: true, plan: { flagIds: candidates.map((f) => f.id), reason } };
 }

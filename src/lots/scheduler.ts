@@ -8,7 +8,8 @@
  * 'claimed' by an instance that died before posting may be taken over after the lease.
  *
  * Missed summaries: at start, if the most recent slot has no posted summary (the bot was down),
- * it is posted once, marked late, covering everything since the last posted summary.
+ * it is posted once, marked late, covering everything since the last posted summary. The very
+ * first start on a channel has missed nothing and waits for the next slot.
  */
 import { Cron } from 'croner';
 import type { Digest } from './digest.js';
@@ -93,6 +94,8 @@ export class DigestScheduler {
     const run = await this.deps.repo.getDigestRun(this.deps.channel, date);
     if (run?.status === 'posted') return undefined;
     if (run?.status === 'failed' && run.attempts >= this.maxAttempts) return undefined;
+    // A first start ever (no summary posted to this channel before) has missed nothing.
+    if (!run && !(await this.deps.repo.lastPostedDigest(this.deps.channel))) return undefined;
     return this.runSlot(slot, now);
   }
 

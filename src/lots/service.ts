@@ -6,12 +6,12 @@
 import { z } from 'zod';
 import { buildDigest, type Digest } from './digest.js';
 import type { LotError } from './evaluation.js';
-import { FLAG_CODES, isOpen, type StoredFlag } from './flags.js';
+import { FLAG_CODES } from './flags.js';
 import { normalizeLotId, type LotIdRule } from './ids.js';
 import { lotView, type LotView } from './lot-view.js';
 import { mayWrite, type LotAction, type Permissions } from './permissions.js';
 import type { LotPhysics } from './physics.js';
-import { planRecord } from './plan.js';
+import { planClear, planRecord } from './plan.js';
 import { RecordRequest, type Actor } from './readings.js';
 import type { ClearOutcome, FlagWithProduct, LotRepository, RecordOutcome } from './repository.js';
 import type { SpecCatalog } from './spec/schema.js';
@@ -169,37 +169,7 @@ export class LotService {
         at: this.deps.now().toISOString(),
         ...(sel.kind === 'id' ? { flagId: sel.flagId } : {}),
       },
-      (state) => {
-        if (!state.lot) return { ok: false, error: { code: 'unknown_lot', lotId } };
-        const brief = (f: StoredFlag) => ({ id: f.id, code: f.code, scope: f.scope });
-        const what = sel.kind === 'id' ? `F${sel.flagId}` : sel.kind === 'all' ? 'all' : sel.code;
-        if (sel.kind === 'id') {
-          const f = state.named;
-          if (!f) return { ok: false, error: { code: 'no_such_flag', lotId, what, open: state.openFlags.map(brief) } };
-          if (f.lotId !== lotId) return { ok: false, error: { code: 'flag_other_lot', flagId: f.id, flagLot: f.lotId, lotId } };
-          if (!isOpen(f)) {
-            return {
-              ok: false,
-              error: { code: 'flag_already_cleared', flagId: f.id, at: f.clearance!.at, by: f.clearance!.byUserName ?? f.clearance!.byUserId },
-            };
-          }
-          return { ok: true, plan: { flagIds: [f.id], reason: req.reason } };
-        }
-        const candidates =
-          sel.kind === 'all'
-            ? state.openFlags
-            : state.openFlags.filter(
-                (f) =>
-                  f.code === sel.code &&
-                  (sel.wafer === undefined || f.wafer === sel.wafer) &&
-                  (sel.site === undefined || f.site === sel.site),
-              );
-        if (candidates.length === 0) return { ok: false, error: { code: 'no_such_flag', lotId, what, open: state.openFlags.map(brief) } };
-        if (candidates.length > 1 && sel.kind === 'code') {
-          return { ok: false, error: { code: 'ambiguous_flag', lotId, what, candidates: candidates.map(brief) } };
-        }
-        return { ok: true, plan: { flagIds: candidates.map((f) => f.id), reason: req.reason } };
-      },
+      (state) => planClear(lotId, sel, req.reason, state),
     );
     if (!result.ok) return result;
     return { ok: true, value: { outcome: result.outcome, duplicate: result.duplicate } };

@@ -140,6 +140,15 @@ describe('a summary missed while the bot was down', () => {
     await h.close();
   });
 
+  it('the very first start on a channel has missed nothing: no late summary', async () => {
+    const h = makeHarness({ channel: CHANNEL });
+    const { posted, publish } = collector();
+    h.clock.set('2025-06-10T08:30:00Z');
+    expect(await schedulerFor(h, publish).catchUp()).toBeUndefined();
+    expect(posted).toHaveLength(0);
+    await h.close();
+  });
+
   it('a claim abandoned by a crashed instance is taken over after the lease, not before', async () => {
     const h = makeHarness({ channel: CHANNEL });
     const { posted, publish } = collector();

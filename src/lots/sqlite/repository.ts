@@ -123,6 +123,11 @@ export class SqliteLotRepository implements LotRepository {
   // ---------- writes ----------
 
   async commitRecord(write: RecordWrite, plan: (state: LotState) => PlanResult<RecordPlan>): Promise<WriteResult<RecordOutcome>> {
+    return this.commitRecordSync(write, plan);
+  }
+
+  /** The same write, synchronously (SQLite is synchronous underneath): for seeding and tools. */
+  commitRecordSync(write: RecordWrite, plan: (state: LotState) => PlanResult<RecordPlan>): WriteResult<RecordOutcome> {
     const run = this.db.transaction((): WriteResult<RecordOutcome> => {
       const seen = this.st.event.get(write.eventId) as { kind: string; outcome_json: string } | undefined;
       if (seen) {
@@ -235,6 +240,10 @@ export class SqliteLotRepository implements LotRepository {
   }
 
   async commitClear(write: ClearWrite, plan: (state: ClearState) => PlanResult<ClearPlan>): Promise<WriteResult<ClearOutcome>> {
+    return this.commitClearSync(write, plan);
+  }
+
+  commitClearSync(write: ClearWrite, plan: (state: ClearState) => PlanResult<ClearPlan>): WriteResult<ClearOutcome> {
     const run = this.db.transaction((): WriteResult<ClearOutcome> => {
       const seen = this.st.event.get(write.eventId) as { lot_id: string; outcome_json: string } | undefined;
       if (seen) {
@@ -306,6 +315,10 @@ export class SqliteLotRepository implements LotRepository {
 
   async countReadings(): Promise<number> {
     return (this.st.countReadings.get() as { n: number }).n;
+  }
+
+  countLotsSync(): number {
+    return (this.db.prepare('SELECT count(*) AS n FROM lots').get() as { n: number }).n;
   }
 
   // ---------- digest claims ----------

@@ -1,0 +1,188 @@
+/**
+ * `record`: store a lot reading, check it against the product spec, say pass or which flag.
+ *
+ *   record <lot> [w<n>] [site <n>] rho <ρ> | sheet <Rs> thick <t> [spacing <s>] | type <method> <reading> | type n|p
+ *          [at <temperature>] [product <id>] [corrects <reading number>]
+ */
+import { z } from 'zod';
+import { LIMITS, RecordRequest, type PrimaryMeasurement, type TypeMeasurement } from '../../lots/readings.js';
+import { errorReply } from '../../reply/build.js';
+import { formatNumber } from '../../reply/format.js';
+import { ArgError, type Args } from '../args.js';
+import { identity } from '../common.js';
+import { defineCommand } from '../spec.js';
+import type { Dimension, Quantity } from '../units.js';
+import { actorOf, lotsOf, NOT_SET_UP, takeLotId, takeSite, takeWafer } from './parse.js';
+import { recordReply } from './record-reply.js';
+import { lotErrorReply } from './wording.js';
+
+export const RecordCommandRequest = z.object({
+  record: RecordRequest,
+  bareNumber: z.boolean(),
+  asTyped: z.record(z.string(), z.string()),
+});
+export type RecordCommandRequest = z.infer<typeof RecordCommandRequest>;
+
+const USAGE =
+  'record <lot> [w<n>] [site <n>] rho <ρ> | sheet <Rs> thick <t> | type <hot|cold|hall|point|spv> <reading> | type n|p  [at <T>] [product <id>] [corrects <#>]';
+const EXAMPLE = 'record LOT-A17 w3 rho 8.4 ohm-cm';
+
+const TYPE_METHOD_WORDS: Readonly<Record<string, 'hot' | 'cold' | 'hall' | 'point' | 'spv'>> = {
+  hot: 'hot',
+  'hot-probe': 'hot',
+  thermal: 'hot',
+  cold: 'cold',
+  'cold-probe': 'cold',
+  hall: 'hall',
+  point: 'point',
+  'point-contact': 'point',
+  rectification: 'point',
+  spv: 'spv',
+  photovoltage: 'spv',
+};
+const STATED_TYPE_WORDS: Readonly<Record<string, 'n' | 'p'>> = { n: 'n', p: 'p', 'n-type': 'n', 'p-type': 'p', ntype: 'n', ptype: 'p' };
+const POLARITY_WORDS: Readonly<Record<string, 1 | -1>> = { '+': 1, positive: 1, plus: 1, '-': -1, negative: -1, minus: -1 };
+
+function checkRange(what: string, q: Quantity, limits: { min: number; max: number }, unit: string, scale = 1): void {
+  if (!(q.value > 0)) throw new ArgError('bad_value', `${what} must be a positive number; "${q.raw}" is not. ${EXAMPLE}`);
+  if (q.value < limits.min || q.value > limits.max) {
+    throw new ArgError(
+      'bad_value',
+      `${what} "${q.raw}" is outside what a silicon reading can be here (${formatNumber(limits.min * scale)} to ${formatNumber(limits.max * scale)} ${unit}); check the number and its unit.`,
+    );
+  }
+}
+
+function readTypeReading(args: Args, word: string): TypeMeasurement {
+  const lower = word.toLowerCase();
+  const stated = STATED_TYPE_WORDS[lower];
+  if (stated) return { kind: 'stated-type', carrierType: stated, asEntered: word };
+  const method = TYPE_METHOD_WORDS[lower];
+  if (!method) {
+    throw new ArgError('bad_value', `"type ${word}": give n or p, or a probe reading such as "type hot -1.2mV", "type hall -1.3e3 cm3/C", "type point +"`);
+  }
+  if (method === 'point') {
+    args.flag(['forward', 'easy', 'fwd']);
+    const pol = args.word(POLARITY_WORDS);
+    if (!pol) throw new ArgError('missing_value', 'Give the polarity of the point at easy (forward) conduction: "type point +" or "type point -"');
+    return { kind: 'type', method, reading: pol.value, asEntered: `point ${pol.raw}` };
+  }
+  const dim: Dimension = method === 'hall' ? 'hallCoefficient' : 'voltage';
+  const q = args.quantity([dim]);
+  if (!q) {
+    const other = args.anyNumber();
+    const ex = method === 'hall' ? 'type hall -1.3e3 cm3/C' : `type ${method} -1.2mV`;
+    throw new ArgError(other ? 'wrong_dimension' : 'missing_value', other ? `"${other.raw}" is not ${dim === 'voltage' ? 'a voltage' : 'a Hall coefficient'}; e.g. ${ex}` : `Give the signed reading, e.g. ${ex}`);
+  }
+  if (q.bareNumber) throw new ArgError('bad_unit', `Give the ${method} reading with its unit, e.g. type ${method} ${q.raw}${dim === 'voltage' ? 'mV' : ' cm3/C'}`);
+  return { kind: 'type', method, reading: q.value, asEntered: `${method} ${q.raw}` };
+}
+
+export const recordCommand = defineCommand<RecordCommandRequest>({
+  verb: 'record',
+  aliases: ['rec'],
+  help: {
+    summary: 'Record a lot reading; it is checked against the product spec and the reply says pass or which flag.',
+    usage: USAGE,
+    examples: [
+      'record LOT-A17 w3 rho 8.4 ohm-cm',
+      'record LOT-A17 w3 site 2 rho 9.6 ohm-cm product HX-200P',
+      'record LOT-B204 w5 sheet 45 ohm/sq thick 525um',
+      'record LOT-B204 w5 type hot -1.2mV',
+      'record LOT-A17 w3 rho 8.4 ohm-cm type p at 24C',
+      'record LOT-C31 product HX-50PP',
+    ],
+    options: [
+      'w<n> / site <n>: wafer (1–50) and site on the wafer map; leave out for a lot-level reading',
+      'rho <ρ>: resistivity (Ω·cm, mΩ·cm, ohm-cm…); sheet <Rs> thick <t> [spacing <s>]: four-point probe reading',
+      'type hot|cold|spv <mV>, type hall <cm3/C>, type point +|−: a probe reading; type n|p: a type found otherwise',
+      'at <T>: reading temperature; off 23 °C the resistivity is corrected to 23 °C (model estimate) before the check',
+      'product <id>: names the lot’s product (needed once per lot); corrects <#>: this replaces reading # (kept in history)',
+    ],
+    seeAlso: ['lot', 'flags', 'clear', 'digest'],
+  },
+  schema: RecordCommandRequest,
+  parse(args) {
+    const asTyped: Record<string, string> = {};
+    const lotId = takeLotId(args, EXAMPLE);
+    const wafer = takeWafer(args);
+    const site = takeSite(args);
+    const product = args.keyedWord(['product', 'prod']);
+    const correctsWord = args.keyedWord(['corrects', 'correcting', 'replaces', 'correction']);
+    const rho = args.keyed(['rho', 'resistivity', 'res'], 'resistivity');
+    const sheet = args.keyed(['sheet', 'rs'], 'sheetResistance');
+    const thick = args.keyed(['thick', 'thickness'], 'length');
+    const spacing = args.keyed(['spacing', 'pitch'], 'length');
+    const temperature = args.keyed(['at', 'temp', 'temperature'], 'temperature');
+    const typeWord = args.keyedWord(['type']);
+    const typeReading = typeWord !== undefined ? readTypeReading(args, typeWord) : undefined;
+
+    // A reading without its key: "record LOT-A17 w3 8.4 ohm-cm", "… 45 ohm/sq thick 525um".
+    let bare = rho ?? sheet ? undefined : args.quantity(['resistivity', 'sheetResistance']);
+    if (bare?.bareNumber) {
+      throw new ArgError('bad_unit', `"${bare.raw}": say what it is, e.g. "rho ${bare.raw} ohm-cm" or "sheet ${bare.raw} ohm/sq thick 525um"`);
+    }
+    const rhoQ = rho ?? (bare?.dimension === 'resistivity' ? bare : undefined);
+    const sheetQ = sheet ?? (bare?.dimension === 'sheetResistance' ? bare : undefined);
+    bare = undefined;
+
+    let primary: PrimaryMeasurement | undefined;
+    let bareNumber = false;
+    if (rhoQ && sheetQ) throw new ArgError('bad_request', 'One resistivity reading per record: give rho or sheet, not both.');
+    if (rhoQ) {
+      checkRange('A resistivity', rhoQ, LIMITS.resistivityOhmCm, 'Ω·cm');
+      bareNumber = rhoQ.unitAsTyped === '';
+      primary = { kind: 'resistivity', resistivityOhmCm: rhoQ.value, asEntered: rhoQ.raw };
+    } else if (sheetQ) {
+      checkRange('A sheet resistance', sheetQ, LIMITS.sheetResistanceOhmPerSq, 'Ω/□');
+      if (!thick) throw new ArgError('missing_value', `A sheet reading needs the thickness, e.g. record ${lotId} w5 sheet ${sheetQ.raw} thick 525um`);
+      checkRange('The thickness', thick, LIMITS.thicknessCm, 'µm', 1e4);
+      if (spacing) checkRange('The probe spacing', spacing, LIMITS.spacingCm, 'mm', 10);
+      primary = {
+        kind: 'sheet',
+        sheetResistanceOhmPerSq: sheetQ.value,
+        thicknessCm: thick.value,
+        ...(spacing ? { spacingCm: spacing.value } : {}),
+        asEntered: [sheetQ.raw, `thick ${thick.raw}`, ...(spacing ? [`spacing ${spacing.raw}`] : [])].join(' '),
+      };
+    } else if (thick || spacing) {
+      throw new ArgError('missing_value', `"thick" goes with a sheet reading, e.g. record ${lotId} w5 sheet 45 ohm/sq thick 525um`);
+    }
+    if (temperature) {
+      asTyped['temperature'] = temperature.raw;
+      if (temperature.value < LIMITS.temperatureK.min || temperature.value > LIMITS.temperatureK.max) {
+        throw new ArgError('bad_value', `"at ${temperature.raw}": a probe reading is taken between −20 °C and 120 °C; check the number and unit (e.g. at 24C).`);
+      }
+    }
+    let corrects: number | undefined;
+    if (correctsWord !== undefined) {
+      const m = /^#?(\d{1,12})$/.exec(correctsWord);
+      if (!m) throw new ArgError('bad_value', `"corrects ${correctsWord}": give the reading number shown by "lot ${lotId}", e.g. corrects 12`);
+      corrects = Number(m[1]);
+    }
+    if (!primary && !typeReading && product === undefined) {
+      throw new ArgError('missing_value', `Give a reading (rho, sheet or type) or a product, e.g. ${EXAMPLE}`);
+    }
+    return {
+      record: {
+        lotId,
+        ...(wafer !== undefined ? { wafer } : {}),
+        ...(site !== undefined ? { site } : {}),
+        ...(primary ? { primary } : {}),
+        ...(typeReading ? { typeReading } : {}),
+        ...(temperature ? { temperatureK: temperature.value, temperatureAsEntered: temperature.raw } : {}),
+        ...(product !== undefined ? { productId: product } : {}),
+        ...(corrects !== undefined ? { corrects } : {}),
+      },
+      bareNumber,
+      asTyped,
+    };
+  },
+  async run(req, ctx) {
+    const lots = lotsOf(ctx);
+    if (!lots) return errorReply('lots_unavailable', NOT_SET_UP);
+    const r = await lots.record(req.record, { actor: actorOf(ctx), ...(ctx.eventId ? { eventId: ctx.eventId } : {}) });
+    if (!r.ok) return lotErrorReply(r.error, { usage: USAGE, example: EXAMPLE });
+    return recordReply(identity(ctx), r.value, { bareNumber: req.bareNumber, asTyped: req.asTyped });
+  },
+});
