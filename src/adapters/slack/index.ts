@@ -8,9 +8,7 @@ import type { Logger } from '@slack/bolt';
 import { openServices, type Services } from '../../app.js';
 import { handle as defaultHandle } from '../../commands/handle.js';
 import type { Config } from '../../config.js';
-import { migrate } from '../../store/db.js';
-import { SqliteConversationMemory, conversationMigrations } from '../../store/conversations-sqlite.js';
-import { SqliteEventLedger } from '../../store/event-ledger-sqlite.js';
+import { openChatState, type ChatState } from '../../store/chat-state.js';
 import { createSlackApp, SlackStartError, type SlackRuntime } from './app.js';
 import { DEFAULT_ACK_DEADLINE_MS, DEFAULT_HISTORY_TIMEOUT_MS, type Handler, type SlackDeps } from './deps.js';
 import { createLogger } from './logger.js';
@@ -31,26 +29,18 @@ export interface StartSlackDeps {
   readonly onReady?: (info: { port: number; runtime: SlackRuntime }) => void;
 }
 
-/** The adapter's dependencies over the embedded database of `services`. */
-export function slackDepsFor(services: Services, logger: Logger, handle: Handler = defaultHandle): SlackDeps {
-  migrate(services.db, conversationMigrations);
-  const ping = services.db.prepare('SELECT 1');
+/** The adapter's dependencies: the chat state (see src/store/chat-state.ts), clock, ids, logger. */
+export function slackDepsFor(services: Services, chat: ChatState, logger: Logger, handle: Handler = defaultHandle): SlackDeps {
   return {
     handle,
-    results: services.results,
-    ledger: new SqliteEventLedger(services.db, { now: services.now }),
-    conversations: new SqliteConversationMemory(services.db, services.now),
+    results: chat.results,
+    ledger: chat.ledger,
+    conversations: chat.conversations,
     now: services.now,
     newId: services.newId,
     logger,
     fetch: globalThis.fetch.bind(globalThis),
-    storeHealthy: () => {
-      try {
-        return ping.get() !== undefined;
-      } catch {
-        return false;
-      }
-    },
+    storeHealthy: () => chat.healthy(),
     ackDeadlineMs: DEFAULT_ACK_DEADLINE_MS,
     historyTimeoutMs: DEFAULT_HISTORY_TIMEOUT_MS,
   };
@@ -80,11 +70,12 @@ export async function startSlack(config: Config, deps: StartSlackDeps): Promise<
   const logger =
     deps.logger ?? createLogger({ sink: (line) => deps.io.stderr.write(line + '\n'), level: config.base.logLevel, secrets });
   const services = deps.services ?? openServices(config.base.databasePath);
+  const chat = openChatState(config.base.databasePath, services.db, services.now);
   const runtime = createSlackApp({
     slack,
     port: config.base.port,
     host: config.base.host,
-    deps: { ...slackDepsFor(services, logger, deps.handle), ...deps.overrides },
+    deps: { ...slackDepsFor(services, chat, logger, deps.handle), ...deps.overrides },
   });
   try {
     const { port } = await runtime.start();
@@ -104,6 +95,7 @@ export async function startSlack(config: Config, deps: StartSlackDeps): Promise<
     logger.error('shiftprobe could not start on Slack:', error);
     return 1;
   } finally {
+    chat.close();
     if (!deps.services) services.close();
   }
 }
