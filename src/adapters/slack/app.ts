@@ -26,6 +26,8 @@ export interface SlackAppOptions {
 
 export interface SlackRuntime {
   readonly app: App;
+  /** A Web API client with the bot token, for posts not caused by an event (the daily summary). */
+  readonly client: webApi.WebClient;
   readonly readiness: Readiness;
   /** Listens, checks the bot token with Slack, connects (Socket Mode); resolves with the HTTP port. */
   start(): Promise<{ port: number }>;
@@ -94,7 +96,9 @@ export function createSlackApp(options: SlackAppOptions): SlackRuntime {
   registerCommands(app, listenerDeps);
   registerEvents(app, listenerDeps);
   registerActions(app, listenerDeps);
-  installErrorHandler(app, deps, new webApi.WebClient(botToken, clientOptions));
+  // app.client has no token (tokens come from `authorize`), so posts outside events use this one.
+  const client = new webApi.WebClient(botToken, clientOptions);
+  installErrorHandler(app, deps, client);
 
   if (receiver instanceof SocketModeReceiver) {
     receiver.client.on('connected', () => (readiness.slack = 'connected'));
@@ -122,6 +126,7 @@ export function createSlackApp(options: SlackAppOptions): SlackRuntime {
 
   return {
     app,
+    client,
     readiness,
     async start() {
       let port: number;
