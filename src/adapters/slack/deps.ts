@@ -5,6 +5,7 @@
  */
 import type { Logger } from '@slack/bolt';
 import type { HandleContext, ResultStore } from '../../commands/context.js';
+import type { LotsRuntime } from '../../lots/runtime.js';
 import type { Reply } from '../../reply/reply.js';
 import type { ConversationMemory } from '../../store/conversations.js';
 import type { EventLedger } from '../../store/event-ledger.js';
@@ -30,6 +31,8 @@ export interface SlackDeps {
   readonly ackDeadlineMs: number;
   /** Timeout for the optional channel-history call that lists recent threads. */
   readonly historyTimeoutMs: number;
+  /** Lot records (record, lot, flags, clear, digest) when wired. */
+  readonly lots?: LotsRuntime;
 }
 
 export const DEFAULT_ACK_DEADLINE_MS = 2000;

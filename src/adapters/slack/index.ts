@@ -5,12 +5,13 @@
  * wrong (a rejected token), 1 when start-up failed otherwise.
  */
 import type { Logger } from '@slack/bolt';
-import { openServices, type Services } from '../../app.js';
+import { openServices, StartupError, type Services } from '../../app.js';
 import { handle as defaultHandle } from '../../commands/handle.js';
 import type { Config } from '../../config.js';
 import { openChatState, type ChatState } from '../../store/chat-state.js';
 import { createSlackApp, SlackStartError, type SlackRuntime } from './app.js';
 import { DEFAULT_ACK_DEADLINE_MS, DEFAULT_HISTORY_TIMEOUT_MS, type Handler, type SlackDeps } from './deps.js';
+import { slackDigestPublisher } from './digest.js';
 import { createLogger } from './logger.js';
 
 export { createSlackApp, SlackStartError, type SlackRuntime } from './app.js';
@@ -43,6 +44,7 @@ export function slackDepsFor(services: Services, chat: ChatState, logger: Logger
     storeHealthy: () => chat.healthy(),
     ackDeadlineMs: DEFAULT_ACK_DEADLINE_MS,
     historyTimeoutMs: DEFAULT_HISTORY_TIMEOUT_MS,
+    ...(services.lots ? { lots: services.lots } : {}),
   };
 }
 
@@ -69,7 +71,14 @@ export async function startSlack(config: Config, deps: StartSlackDeps): Promise<
   const secrets = [slack.botToken.reveal(), slack.transport === 'socket' ? slack.appToken.reveal() : slack.signingSecret.reveal()];
   const logger =
     deps.logger ?? createLogger({ sink: (line) => deps.io.stderr.write(line + '\n'), level: config.base.logLevel, secrets });
-  const services = deps.services ?? openServices(config.base.databasePath);
+  let services: Services;
+  try {
+    services = deps.services ?? openServices(config.base.databasePath, { lots: config.lots });
+  } catch (e) {
+    if (!(e instanceof StartupError)) throw e;
+    deps.io.stderr.write(`shiftprobe cannot start: ${e.message}\n`);
+    return 78;
+  }
   const chat = openChatState(config.base.databasePath, services.db, services.now);
   const runtime = createSlackApp({
     slack,
@@ -83,8 +92,14 @@ export async function startSlack(config: Config, deps: StartSlackDeps): Promise<
       `shiftprobe is answering on Slack (${slack.transport === 'http' ? `HTTP, events at :${port}/slack/events` : 'Socket Mode'}); ` +
         `${slack.slashCommand}, mentions and DMs; health at :${port}/healthz and /readyz`,
     );
+    // The daily summary of flagged lots to DIGEST_CHANNEL (none when it is not set).
+    const digest = await services.lots?.startDigest(
+      slackDigestPublisher(runtime.client, { now: services.now, newId: services.newId, results: chat.results, demo: services.lots.catalog.demo }),
+      { onError: (e, context) => logger.error(`shiftprobe: ${context} could not be posted:`, e) },
+    );
     deps.onReady?.({ port, runtime });
     await (deps.stopSignal ?? untilSignal());
+    digest?.stop();
     await runtime.stop();
     return 0;
   } catch (error) {

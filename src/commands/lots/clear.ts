@@ -11,7 +11,7 @@ import { ArgError } from '../args.js';
 import { identity } from '../common.js';
 import { defineCommand } from '../spec.js';
 import { actorOf, lotsOf, NOT_SET_UP, takeLotId, takeSite, takeWafer } from './parse.js';
-import { flagLine, lotErrorReply } from './wording.js';
+import { countValue, flagLine, lotErrorReply } from './wording.js';
 
 export const ClearCommandRequest = ClearRequest;
 export type ClearCommandRequest = z.infer<typeof ClearCommandRequest>;
@@ -78,7 +78,7 @@ export const clearCommand = defineCommand<ClearCommandRequest>({
     return okReply(identity(ctx), {
       command: 'clear',
       title: `${outcome.lotId} · cleared ${n === 1 ? flagHandle(outcome.cleared[0]!.id) : `${n} flags`}`,
-      values: [{ key: 'clearedFlagCount', value: n, unit: '', label: 'Flags cleared', headline: true, sigFigs: 6 }],
+      values: [countValue('clearedFlagCount', n, 'Flags cleared', true)],
       inputs: { lot: { value: outcome.lotId, label: 'Lot' }, reason: { value: req.reason, label: 'Reason' } },
       assumptions: [
         'The flag stays in the lot’s history with who cleared it, when and why; nothing is deleted.',

@@ -12,7 +12,7 @@ import type { ReplyOk, ReplySection } from '../../reply/reply.js';
 import { identity } from '../common.js';
 import { defineCommand } from '../spec.js';
 import { lotsOf, NOT_SET_UP } from './parse.js';
-import { DEMO_SPECS_NOTE, FLAG_TITLES, flagDetailText, LOT_FLAG_CAUTION } from './wording.js';
+import { countValue, DEMO_SPECS_NOTE, FLAG_TITLES, flagDetailText, LOT_FLAG_CAUTION } from './wording.js';
 
 export const DigestRequest = z.object({});
 export type DigestRequest = z.infer<typeof DigestRequest>;
@@ -85,9 +85,9 @@ export function digestReply(id: ReplyIdentity, d: Digest, o: { demo?: boolean } 
     command: 'digest',
     title,
     values: [
-      { key: 'flaggedLotCount', value: d.totals.lots, unit: '', label: 'Flagged lots', headline: true, sigFigs: 6 },
-      { key: 'newFlagCount', value: d.totals.newFlags, unit: '', label: 'New flags', sigFigs: 6 },
-      { key: 'openFlagCount', value: d.totals.openFlags, unit: '', label: 'Open flags', sigFigs: 6 },
+      countValue('flaggedLotCount', d.totals.lots, 'Flagged lots', true),
+      countValue('newFlagCount', d.totals.newFlags, 'New flags'),
+      countValue('openFlagCount', d.totals.openFlags, 'Open flags'),
     ],
     inputs: {},
     assumptions: [

@@ -10,7 +10,7 @@ import { ArgError } from '../args.js';
 import { identity } from '../common.js';
 import { defineCommand } from '../spec.js';
 import { lotsOf, NOT_SET_UP } from './parse.js';
-import { clearanceText, FLAG_TITLES, flagDetailText, LOT_FLAG_CAUTION } from './wording.js';
+import { clearanceText, countValue, FLAG_TITLES, flagDetailText, LOT_FLAG_CAUTION } from './wording.js';
 
 export const FlagsRequest = z.object({ period: z.enum(FLAG_PERIODS) });
 export type FlagsRequest = z.infer<typeof FlagsRequest>;
@@ -78,9 +78,9 @@ export function flagsReply(id: ReplyIdentity, r: FlagsResult, timeZone: string):
     command: 'flags',
     title,
     values: [
-      { key: 'flagCount', value: r.flags.length, unit: '', label: 'Flags', headline: true, sigFigs: 6 },
-      { key: 'openFlagCount', value: openCount, unit: '', label: 'Still open', sigFigs: 6 },
-      { key: 'lotCount', value: lotCount, unit: '', label: 'Lots', sigFigs: 6 },
+      countValue('flagCount', r.flags.length, 'Flags', true),
+      countValue('openFlagCount', openCount, 'Still open'),
+      countValue('lotCount', lotCount, 'Lots'),
     ],
     inputs: { period: { value: r.period, label: 'Period' } },
     assumptions: [`Ages from ${formatLocal(now, timeZone)}.`],

@@ -2,14 +2,14 @@
 import { z } from 'zod';
 import { placeLabel } from '../../lots/ids.js';
 import type { LotView } from '../../lots/lot-view.js';
-import { formatAge, formatLocal } from '../../lots/time.js';
+import { formatLocal } from '../../lots/time.js';
 import { errorReply, okReply, type ReplyIdentity } from '../../reply/build.js';
 import { formatNumber } from '../../reply/format.js';
 import type { ReplySection, ReplyValue } from '../../reply/reply.js';
 import { identity } from '../common.js';
 import { defineCommand } from '../spec.js';
 import { lotsOf, NOT_SET_UP, takeLotId } from './parse.js';
-import { clearanceText, DEMO_SPECS_NOTE, flagLine, LOT_FLAG_CAUTION, lotErrorReply, quantityValue, readingLabel, readingResult } from './wording.js';
+import { ago, clearanceText, countValue, DEMO_SPECS_NOTE, flagLine, LOT_FLAG_CAUTION, lotErrorReply, readingLabel, readingResult, windowText } from './wording.js';
 
 export const LotRequest = z.object({ lotId: z.string().min(1).max(64) });
 export type LotRequest = z.infer<typeof LotRequest>;
@@ -55,10 +55,10 @@ export function lotReply(id: ReplyIdentity, v: LotView, o: { timeZone: string; n
   const productId = v.lot.productId;
   const title = `${v.lot.lotId} · ${productId ?? 'no product'} · ${v.openFlags.length === 0 ? 'no open flags' : `${v.openFlags.length} open flag${v.openFlags.length === 1 ? '' : 's'}`}`;
   const values: ReplyValue[] = [
-    { key: 'openFlagCount', value: v.openFlags.length, unit: '', label: 'Open flags', headline: true, sigFigs: 6 },
-    { key: 'readingCount', value: v.readings.length, unit: '', label: 'Readings (current)', sigFigs: 6 },
+    countValue('openFlagCount', v.openFlags.length, 'Open flags', true),
+    countValue('readingCount', v.readings.length, 'Readings'),
   ];
-  if (v.readings.length !== v.currentCount) values[1] = { ...values[1]!, value: `${v.readings.length} (${v.currentCount} current)` };
+  if (v.readings.length !== v.currentCount) values.push(countValue('currentReadingCount', v.currentCount, 'Readings that count (not corrected)'));
   if (v.waferSpread) {
     values.push({ key: 'waferSpreadPercent', value: v.waferSpread.spreadPercent, unit: '%', label: `Wafer-to-wafer spread${v.waferLimitPercent !== undefined ? ` (limit ${v.waferLimitPercent} %)` : ''}`, sigFigs: 2 });
   }
@@ -66,9 +66,9 @@ export function lotReply(id: ReplyIdentity, v: LotView, o: { timeZone: string; n
   const p = v.product;
   if (p) {
     const window = p.resistivityOhmCm
-      ? `${quantityValue('resistivityOhmCm', p.resistivityOhmCm.min)} – ${quantityValue('resistivityOhmCm', p.resistivityOhmCm.max)}`
+      ? windowText('resistivityOhmCm', p.resistivityOhmCm.min, p.resistivityOhmCm.max)
       : p.dopantDensityPerCm3
-        ? `${quantityValue('dopantDensityPerCm3', p.dopantDensityPerCm3.min)} – ${quantityValue('dopantDensityPerCm3', p.dopantDensityPerCm3.max)}`
+        ? windowText('dopantDensityPerCm3', p.dopantDensityPerCm3.min, p.dopantDensityPerCm3.max)
         : '—';
     const spread = [
       p.spread?.siteToSitePercent !== undefined ? `site-to-site ≤ ${p.spread.siteToSitePercent} %` : undefined,
@@ -107,7 +107,7 @@ export function lotReply(id: ReplyIdentity, v: LotView, o: { timeZone: string; n
   if (v.openFlags.length > 0) {
     sections.push({
       heading: 'Open flags',
-      lines: v.openFlags.map((f) => `${flagLine(f)} · ${formatAge(f.raisedAt, o.now)} · ${f.raisedBy.userName ?? f.raisedBy.userId}`),
+      lines: v.openFlags.map((f) => `${flagLine(f)} · ${ago(f.raisedAt, o.now)}, ${f.raisedBy.userName ?? f.raisedBy.userId}`),
     });
   }
   if (v.readings.length > 0) {
@@ -133,7 +133,7 @@ export function lotReply(id: ReplyIdentity, v: LotView, o: { timeZone: string; n
   if (v.contributors.length > 0) {
     sections.push({
       heading: 'Recorded by',
-      lines: [v.contributors.map((c) => `${c.name} ${c.readings} (last ${formatAge(c.lastAt, o.now)} ago)`).join(' · ')],
+      lines: [v.contributors.map((c) => `${c.name}: ${c.readings} reading${c.readings === 1 ? '' : 's'}, last ${ago(c.lastAt, o.now)}`).join(' · ')],
     });
   }
   return okReply(id, {

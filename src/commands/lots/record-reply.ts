@@ -58,8 +58,8 @@ export function recordReply(identity: ReplyIdentity, result: RecordResult, extra
   }
 
   const inputs: Record<string, ReplyInput> = { lot: { value: outcome.lotId, label: 'Lot' } };
-  if (first?.wafer !== undefined) inputs['wafer'] = { value: first.wafer, label: 'Wafer' };
-  if (first?.site !== undefined) inputs['site'] = { value: first.site, label: 'Site' };
+  if (first?.wafer !== undefined) inputs['wafer'] = { value: `w${first.wafer}`, label: 'Wafer' };
+  if (first?.site !== undefined) inputs['site'] = { value: String(first.site), label: 'Site' };
   for (const r of readings) {
     inputs[r.quantity] = { value: r.asEntered, label: r.quantity === 'type' ? 'Type reading' : r.quantity === 'sheet' ? 'Sheet reading' : 'Resistivity' };
   }
@@ -93,10 +93,10 @@ export function recordReply(identity: ReplyIdentity, result: RecordResult, extra
   for (const f of outcome.raised) warnings.push({ code: `flag_${f.code}`, message: `${flagHandle(f.id)} raised — ${FLAG_TITLES[f.code]}: ${flagDetailText(f.detail)}.` });
 
   const sections = [];
-  const checks = readings.flatMap((r) => r.evaluation.checks.map(checkText));
+  const checks = readings.flatMap((r) => r.evaluation.checks.map((c) => checkText(c, r.evaluation.model?.name)));
   if (checks.length > 0) sections.push({ heading: 'Checks', table: { columns: ['Check', 'Result', 'Detail'], rows: checks.map((c) => [c.name, c.result, c.detail]) } });
+  // New flags are in the warnings; here what was already open and what was closed.
   const flagLines = [
-    ...outcome.raised.map((f) => `New: ${flagLine(f)}`),
     ...outcome.alreadyOpen.map((f) => `Still open: ${flagLine(f)}`),
     ...outcome.closed.map((f) => `Closed: ${flagLine(f)} — ${f.clearance?.reason ?? ''}`),
   ];
@@ -108,7 +108,7 @@ export function recordReply(identity: ReplyIdentity, result: RecordResult, extra
   const steps: string[] = [];
   for (const r of readings) {
     for (const c of r.evaluation.checks) {
-      const t = checkText(c);
+      const t = checkText(c, r.evaluation.model?.name);
       steps.push(`${t.name}: ${t.detail} → ${t.result}`);
     }
   }
@@ -158,7 +158,7 @@ function readingValues(r: StoredReading): ReplyValue[] {
       key: 'specMarginPercent',
       value: w.status === 'pass' ? w.marginPercent : -w.marginPercent,
       unit: '%',
-      label: w.status === 'pass' ? `Margin to the ${w.limit === 'max' ? 'maximum' : 'minimum'}` : `Past the ${w.limit === 'max' ? 'maximum' : 'minimum'}`,
+      label: `Margin to the ${w.limit === 'max' ? 'maximum' : 'minimum'}${w.status === 'pass' ? '' : ' (− = outside)'}`,
       sigFigs: 2,
     });
   }

@@ -9,7 +9,8 @@ import type { StoredReading } from '../../lots/readings.js';
 import { errorReply } from '../../reply/build.js';
 import { formatNumber } from '../../reply/format.js';
 import { assumptionText, problemMessage } from '../../reply/messages.js';
-import type { ReplyError } from '../../reply/reply.js';
+import type { ReplyError, ReplyValue } from '../../reply/reply.js';
+import { formatAge } from '../../lots/time.js';
 import { refusalMessage } from '../describe.js';
 
 export const LOT_FLAG_CAUTION =
@@ -26,6 +27,22 @@ export function quantityValue(quantity: 'resistivityOhmCm' | 'dopantDensityPerCm
   return quantity === 'resistivityOhmCm' ? ohmCm(v) : perCm3(v);
 }
 
+/** '8.00 – 12.0 Ω·cm' */
+export function windowText(quantity: 'resistivityOhmCm' | 'dopantDensityPerCm3', min: number, max: number): string {
+  return `${formatNumber(min)} – ${quantityValue(quantity, max)}`;
+}
+
+/** '5 h ago', 'just now' */
+export function ago(iso: string, now: Date): string {
+  const age = formatAge(iso, now);
+  return age === 'just now' ? age : `${age} ago`;
+}
+
+/** A count as a reply value: a number, shown without decimals. */
+export function countValue(key: string, n: number, label: string, headline = false): ReplyValue {
+  return { key, value: n, unit: '', label, sigFigs: Math.max(1, String(Math.trunc(Math.abs(n))).length), ...(headline ? { headline } : {}) };
+}
+
 const SPREAD_DEFINITION: Record<string, string> = {
   'range-over-mean': 'range over mean',
   'range-over-min': 'range over minimum',
@@ -37,7 +54,7 @@ export function flagDetailText(d: FlagDetail): string {
     case 'out_of_window': {
       const limit = d.side === 'above' ? d.max : d.min;
       const what = d.quantity === 'resistivityOhmCm' ? 'resistivity' : 'dopant density';
-      return `${what} ${quantityValue(d.quantity, d.value)} is ${pct(d.marginPercent)} ${d.side} the ${quantityValue(d.quantity, limit)} ${d.side === 'above' ? 'maximum' : 'minimum'} (window ${quantityValue(d.quantity, d.min)} – ${quantityValue(d.quantity, d.max)})`;
+      return `${what} ${quantityValue(d.quantity, d.value)} is ${pct(d.marginPercent)} ${d.side} the ${quantityValue(d.quantity, limit)} ${d.side === 'above' ? 'maximum' : 'minimum'} (window ${windowText(d.quantity, d.min, d.max)})`;
     }
     case 'type_mismatch':
       return `reads ${d.found}-type (${d.method === 'stated' ? 'as stated' : `${d.method} probe`}); the product is ${d.expected}-type`;
@@ -81,7 +98,7 @@ export function clearanceText(f: StoredFlag): string {
     : `cleared by ${c.byUserName ?? c.byUserId}: “${c.reason}”`;
 }
 
-export function checkText(c: Check): { name: string; result: string; detail: string } {
+export function checkText(c: Check, modelName?: string): { name: string; result: string; detail: string } {
   switch (c.check) {
     case 'window': {
       const inside = c.status === 'pass';
@@ -90,12 +107,16 @@ export function checkText(c: Check): { name: string; result: string; detail: str
         name: c.quantity === 'resistivityOhmCm' ? 'Resistivity window' : 'Density window',
         result: inside ? 'pass' : 'FLAG',
         detail: inside
-          ? `${quantityValue(c.quantity, c.value)} in ${quantityValue(c.quantity, c.min)} – ${quantityValue(c.quantity, c.max)}; ${pct(c.marginPercent)} inside the ${limitWord}`
+          ? `${quantityValue(c.quantity, c.value)} in ${windowText(c.quantity, c.min, c.max)}; ${pct(c.marginPercent)} inside the ${limitWord}`
           : `${quantityValue(c.quantity, c.value)} is ${pct(c.marginPercent)} ${c.limit === 'max' ? 'above the maximum' : 'below the minimum'} (${quantityValue(c.quantity, c.limit === 'max' ? c.max : c.min)})`,
       };
     }
     case 'validity':
-      return { name: 'Conversion validity', result: c.status === 'pass' ? 'pass' : 'FLAG', detail: c.status === 'pass' ? `inside the ${c.model} range` : `outside the ${c.model} range` };
+      return {
+        name: 'Conversion validity',
+        result: c.status === 'pass' ? 'pass' : 'FLAG',
+        detail: `${c.status === 'pass' ? 'inside' : 'outside'} the range of ${modelName ?? c.model}`,
+      };
     case 'type':
       return {
         name: 'Conductivity type',
