@@ -10,6 +10,9 @@ import { rhoCommand } from './rho.js';
 import { sheetCommand } from './sheet.js';
 import type { CommandSpec } from './spec.js';
 import { typeCommand } from './type.js';
+import { carriersCommand } from './carriers.js';
+import { crossoverCommand } from './crossover.js';
+import { layerCommand } from './layer.js';
 import { whyCommand } from './why.js';
 import { clearCommand } from './lots/clear.js';
 import { digestCommand } from './lots/digest.js';
@@ -23,6 +26,9 @@ export const COMMANDS: readonly CommandSpec<any>[] = [
   sheetCommand,
   typeCommand,
   niCommand,
+  carriersCommand,
+  crossoverCommand,
+  layerCommand,
   recordCommand,
   lotCommand,
   flagsCommand,

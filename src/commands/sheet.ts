@@ -15,6 +15,8 @@ import { ArgError } from './args.js';
 import { DopantSchema, identity, readDopant, readModelId } from './common.js';
 import { conversionReply, refusalMessage } from './describe.js';
 import { defineCommand } from './spec.js';
+import { correctReading, readReadingTemperature } from './temperature-common.js';
+import { convertResistivityToDensity } from '../physics/resistivity/convert.js';
 
 export const SheetRequest = z
   .object({
@@ -27,6 +29,11 @@ export const SheetRequest = z
     dopant: DopantSchema.optional(),
     dopantAsTyped: z.string().optional(),
     modelId: z.string().optional(),
+    // issue 5: a reading taken off 23 °C, and optionally the person's coefficient
+    temperatureK: z.number().finite().optional(),
+    temperatureAsTyped: z.string().optional(),
+    coefficientPerK: z.number().finite().optional(),
+    coefficientAsTyped: z.string().optional(),
     asTyped: z.record(z.string(), z.string()),
   })
   .refine((r) => r.sheetResistanceOhmPerSq !== undefined || (r.voltageV !== undefined && r.currentA !== undefined), {
@@ -34,7 +41,7 @@ export const SheetRequest = z
   });
 export type SheetRequest = z.infer<typeof SheetRequest>;
 
-const USAGE = 'sheet <Rs ohm/sq | V I> [thick <t>] [spacing <s>] [diam <d>] [p|n|dopant] [model <id>]';
+const USAGE = 'sheet <Rs ohm/sq | V I> [thick <t>] [spacing <s>] [diam <d>] [p|n|dopant] [model <id>] [at <T> [tc <x>%/K]]';
 const EXAMPLE = 'sheet 45 ohm/sq thick 525um n';
 
 export const sheetCommand = defineCommand<SheetRequest>({
@@ -49,17 +56,22 @@ export const sheetCommand = defineCommand<SheetRequest>({
       'sheet 120 Ω/□',
       'sheet 2.2mV 10uA thick=0.5mm spacing=1.59mm boron',
       '45 ohm/sq thick 525um n',
+      'sheet 45 ohm/sq thick 525um n at 27C',
+      'sheet 4.1mV 1mA thick 725um spacing 1mm p at 25C tc 0.75%/K',
     ],
     options: [
       'thick <t>: wafer or layer thickness (µm, um, mm) — needed for resistivity',
       'spacing <s>: probe pin spacing — enables the finite-thickness factor F(t/s)',
       'diam <d>: wafer diameter, probe centred — enables the finite-diameter factor C(d/s)',
       'p | n | dopant: converts the resistivity to a dopant density',
+      'at <T>: reading taken at T; the resistivity is corrected to 23 °C (model coefficient, needs thick and the dopant) — a model estimate',
+      'tc <x>%/K: your coefficient instead (with at <T> and thick)',
     ],
     seeAlso: ['rho', 'why'],
   },
   schema: SheetRequest,
   parse(args) {
+    const temperature = readReadingTemperature(args, 'sheet 45 ohm/sq thick 525um n');
     const asTyped: Record<string, string> = {};
     const thickness = args.keyed(['thick', 'thickness', 't'], 'length');
     const spacing = args.keyed(['spacing', 'pitch', 's'], 'length');
@@ -88,6 +100,7 @@ export const sheetCommand = defineCommand<SheetRequest>({
       dopant: d?.dopant,
       dopantAsTyped: d?.raw,
       modelId: readModelId(args),
+      ...temperature,
       asTyped,
     };
   },
@@ -99,11 +112,31 @@ export const sheetCommand = defineCommand<SheetRequest>({
       ...(req.thicknessCm !== undefined ? { thicknessCm: req.thicknessCm } : {}),
       ...(req.spacingCm !== undefined ? { spacingCm: req.spacingCm } : {}),
       ...(req.diameterCm !== undefined ? { diameterCm: req.diameterCm } : {}),
-      ...(req.dopant ? { dopant: req.dopant } : {}),
-      ...(req.modelId ? { modelId: req.modelId } : {}),
+      // With `at <T>` the conversion waits until the resistivity is corrected to 23 °C (below).
+      ...(req.dopant && req.temperatureK === undefined ? { dopant: req.dopant } : {}),
+      ...(req.modelId && req.temperatureK === undefined ? { modelId: req.modelId } : {}),
     });
     if (!outcome.ok) return errorReply(outcome.refusal.code, refusalMessage(outcome.refusal), { usage: USAGE, example: EXAMPLE });
     const r = outcome.value;
+    // issue 5: a reading off 23 °C (src/commands/temperature-common.ts)
+    let corrected: import('./temperature-common.js').CorrectionParts | undefined;
+    let conversion = r.conversion;
+    if (req.temperatureK !== undefined) {
+      if (r.resistivityOhmCm === undefined) {
+        return errorReply('missing_input', 'To correct the reading to 23 °C give the thickness (thick <t>): the coefficient depends on the resistivity.', { usage: USAGE, example: 'sheet 45 ohm/sq thick 525um n at 27C' });
+      }
+      if (!req.dopant && req.coefficientPerK === undefined) {
+        return errorReply('missing_dopant', 'To correct the reading to 23 °C give the type or dopant (p, n, boron…), or your coefficient (tc 0.75%/K).', { usage: USAGE, example: 'sheet 45 ohm/sq thick 525um n at 27C' });
+      }
+      const c = correctReading(r.resistivityOhmCm, req.dopant ?? 'phosphorus', { ...req, temperatureK: req.temperatureK }, req.modelId);
+      if (!c.ok) return errorReply(c.refusal.code, refusalMessage(c.refusal), { usage: USAGE, example: EXAMPLE });
+      corrected = c.value;
+      if (req.dopant) {
+        const conv = convertResistivityToDensity({ resistivityOhmCm: corrected.result.resistivityOhmCm, dopant: req.dopant, ...(req.modelId ? { modelId: req.modelId } : {}) });
+        if (!conv.ok) return errorReply(conv.refusal.code, refusalMessage(conv.refusal), { usage: USAGE, example: EXAMPLE });
+        conversion = conv.value;
+      }
+    }
     const inputs: Record<string, ReplyInput> = {};
     const t = req.asTyped;
     if (req.sheetResistanceOhmPerSq !== undefined) inputs['sheetResistance'] = { value: req.sheetResistanceOhmPerSq, unit: 'Ω/□', label: 'Sheet resistance as read', asTyped: t['rs'] ?? '' };
@@ -131,29 +164,36 @@ export const sheetCommand = defineCommand<SheetRequest>({
     ];
     const geometryEquations = [DIAMETER_FACTOR_EQUATION, ...THICKNESS_FACTOR_EQUATIONS];
     const geometrySources = [DIAMETER_FACTOR_CITATION, THICKNESS_FACTOR_CITATION];
-    if (r.conversion) {
-      return conversionReply(identity(ctx), r.conversion, {
+    if (corrected) {
+      Object.assign(inputs, corrected.inputs);
+      geometryValues.push(...corrected.values);
+      assumptions.push(...corrected.assumptions, 'The sheet resistance is shown as read; the resistivity is the value corrected to 23 °C.');
+      steps.push(...corrected.steps);
+    }
+    if (conversion) {
+      return conversionReply(identity(ctx), conversion, {
         command: 'sheet',
-        title: `Four-point probe: ${formatNumber(r.sheetResistanceOhmPerSq)} Ω/□ → ${formatNumber(r.conversion.resistivityOhmCm)} Ω·cm ${r.conversion.dopant}`,
+        title: `Four-point probe: ${formatNumber(r.sheetResistanceOhmPerSq)} Ω/□ → ${formatNumber(conversion.resistivityOhmCm)} Ω·cm ${conversion.dopant}${corrected ? ' (at 23 °C)' : ''}`,
         headline: 'density',
         inputs,
         extraValues: geometryValues,
         extraAssumptions: assumptions,
-        extraProblems: r.problems,
+        extraProblems: [...r.problems, ...(corrected?.problems ?? [])],
         extraSteps: steps,
-        extraEquations: geometryEquations,
-        extraSources: geometrySources,
+        extraEquations: [...geometryEquations, ...(corrected?.equations ?? [])],
+        extraSources: [...geometrySources, ...(corrected?.sources ?? [])],
         cautions,
       });
     }
     const values = [...geometryValues];
-    if (r.resistivityOhmCm !== undefined) values.unshift({ key: 'resistivityOhmCm', value: r.resistivityOhmCm, unit: 'Ω·cm', label: 'Resistivity', headline: true });
+    const rho23 = corrected ? corrected.result.resistivityOhmCm : r.resistivityOhmCm;
+    if (rho23 !== undefined) values.unshift({ key: 'resistivityOhmCm', value: rho23, unit: 'Ω·cm', label: corrected ? 'Resistivity at 23 °C' : 'Resistivity', headline: true });
     const hints: string[] = [];
     if (req.thicknessCm === undefined) hints.push('Add `thick <t>` for the resistivity.');
     else if (!req.dopant) hints.push('Add the type or dopant (p, n, boron…) for the dopant density.');
     return okReply(identity(ctx), {
       command: 'sheet',
-      title: r.resistivityOhmCm !== undefined ? `Four-point probe: ${formatNumber(r.resistivityOhmCm)} Ω·cm` : `Four-point probe: ${formatNumber(r.sheetResistanceOhmPerSq)} Ω/□`,
+      title: rho23 !== undefined ? `Four-point probe: ${formatNumber(rho23)} Ω·cm${corrected ? ' at 23 °C' : ''}` : `Four-point probe: ${formatNumber(r.sheetResistanceOhmPerSq)} Ω/□`,
       values,
       inputs,
       assumptions: [...assumptions, ...hints],
@@ -163,9 +203,14 @@ export const sheetCommand = defineCommand<SheetRequest>({
         citation: geometrySources.join('; '),
         validity: 'F(t/s) for a layer on an insulating base; C(d/s) for a centred probe, d/s > √3',
       },
-      problems: r.problems,
+      problems: [...r.problems, ...(corrected?.problems ?? [])],
       cautions,
-      derivation: { equations: geometryEquations, parameters: [], steps, sources: geometrySources },
+      derivation: {
+        equations: [...geometryEquations, ...(corrected?.equations ?? [])],
+        parameters: [],
+        steps,
+        sources: [...geometrySources, ...(corrected?.sources ?? [])],
+      },
     });
   },
 });

@@ -185,7 +185,7 @@ export function correctResistivityToReference(req: TemperatureCorrectionRequest)
     {
       code: 'estimate_only',
       model: model.id,
-      reason: `temperature coefficient computed from the ${model.name} mobility model at the reading's doping, not the standard's (ASTM F84) table`,
+      reason: `temperature coefficient computed with the mobility model ${model.name} at the reading's doping, not the standard's (ASTM F84) table`,
     },
     ...outside('temperatureK', T, tRange, model.id),
     ...outside('referenceTemperatureK', tRef, tRange, model.id),
