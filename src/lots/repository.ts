@@ -21,11 +21,20 @@ export interface LotRecord {
   readonly productSetBy?: string;
 }
 
+/** The part of a current reading the checks need (read without its stored evaluation). */
+export interface ReadingPoint {
+  readonly id: number;
+  readonly quantity: StoredReading['quantity'];
+  readonly wafer?: number;
+  readonly site?: number;
+  readonly resistivityOhmCm?: number;
+}
+
 /** What a record plan sees, read inside the write transaction. */
 export interface LotState {
   readonly lot?: LotRecord;
   /** Current (not corrected) readings of the lot, ascending id. */
-  readonly currentReadings: readonly StoredReading[];
+  readonly currentReadings: readonly ReadingPoint[];
   readonly openFlags: readonly StoredFlag[];
   /** The reading named by `corrects`, wherever it is (the plan checks it belongs to the lot). */
   readonly corrected?: StoredReading;

@@ -41,6 +41,9 @@ export const digestCommand = defineCommand<DigestRequest>({
 
 const hours = (ms: number): string => `${Math.round(ms / 3600_000)} h`;
 
+/** Flag rows listed in one summary; the rest are counted (a chat message has to stay readable). */
+export const DIGEST_MAX_ROWS = 40;
+
 export function digestReply(id: ReplyIdentity, d: Digest, o: { demo?: boolean } = {}): ReplyOk {
   const now = new Date(d.windowEnd);
   const lead = d.preview ? 'Summary preview' : `Daily summary ${d.localDate}`;
@@ -59,22 +62,35 @@ export function digestReply(id: ReplyIdentity, d: Digest, o: { demo?: boolean } 
     sections.push({ lines: [`No flagged lots. ${windowLine}`] });
   } else {
     sections.push({ lines: [windowLine] });
+    let budget = DIGEST_MAX_ROWS;
+    let unlistedFlags = 0;
+    const unlistedLots = new Set<string>();
     for (const g of d.groups) {
+      const heading = `${g.productId ?? 'No product'} — ${g.lots.length} lot${g.lots.length === 1 ? '' : 's'}, ${g.flagCount} flag${g.flagCount === 1 ? '' : 's'} (${g.newCount} new, ${g.openCount} open)`;
+      const rows: string[][] = [];
+      for (const l of g.lots) {
+        for (const f of l.flags) {
+          if (budget <= 0) {
+            unlistedFlags += 1;
+            unlistedLots.add(l.lotId);
+            continue;
+          }
+          budget -= 1;
+          rows.push([
+            l.lotId,
+            flagHandle(f.flag.id),
+            placeLabel(f.flag.wafer, f.flag.site),
+            formatAge(f.flag.raisedAt, now),
+            f.open ? (f.isNew ? 'new, open' : 'open') : 'new, cleared',
+            `${FLAG_TITLES[f.flag.code] ?? f.flag.code}: ${flagDetailText(f.flag.detail)}`,
+          ]);
+        }
+      }
+      sections.push(rows.length > 0 ? { heading, table: { columns: ['Lot', 'Flag', 'Where', 'Age', 'Status', 'Reason'], rows } } : { heading });
+    }
+    if (unlistedFlags > 0) {
       sections.push({
-        heading: `${g.productId ?? 'No product'} — ${g.lots.length} lot${g.lots.length === 1 ? '' : 's'}, ${g.flagCount} flag${g.flagCount === 1 ? '' : 's'} (${g.newCount} new, ${g.openCount} open)`,
-        table: {
-          columns: ['Lot', 'Flag', 'Where', 'Age', 'Status', 'Reason'],
-          rows: g.lots.flatMap((l) =>
-            l.flags.map((f) => [
-              l.lotId,
-              flagHandle(f.flag.id),
-              placeLabel(f.flag.wafer, f.flag.site),
-              formatAge(f.flag.raisedAt, now),
-              f.open ? (f.isNew ? 'new, open' : 'open') : 'new, cleared',
-              `${FLAG_TITLES[f.flag.code] ?? f.flag.code}: ${flagDetailText(f.flag.detail)}`,
-            ]),
-          ),
-        },
+        lines: [`…and ${unlistedFlags} more flag${unlistedFlags === 1 ? '' : 's'} on ${unlistedLots.size} lot${unlistedLots.size === 1 ? '' : 's'} not listed here: "flags" lists every open flag, "lot <lot>" shows one lot.`],
       });
     }
   }

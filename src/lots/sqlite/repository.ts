@@ -23,6 +23,7 @@ import type {
   PlanResult,
   RecordOutcome,
   RecordPlan,
+  ReadingPoint,
   RecordWrite,
   WriteResult,
 } from '../repository.js';
@@ -45,6 +46,24 @@ interface ClearEventLog {
   readonly clearedIds: readonly number[];
 }
 
+interface PointRow {
+  id: number;
+  quantity: string;
+  wafer: number | null;
+  site: number | null;
+  resistivity_ohm_cm: number | null;
+}
+
+function pointFromRow(r: PointRow): ReadingPoint {
+  return {
+    id: r.id,
+    quantity: r.quantity as ReadingPoint['quantity'],
+    ...(r.wafer !== null ? { wafer: r.wafer } : {}),
+    ...(r.site !== null ? { site: r.site } : {}),
+    ...(r.resistivity_ohm_cm !== null ? { resistivityOhmCm: r.resistivity_ohm_cm } : {}),
+  };
+}
+
 const READING_SELECT = `
 SELECT r.*, s.id AS superseded_by
 FROM lot_readings r LEFT JOIN lot_readings s ON s.supersedes = r.id`;
@@ -61,8 +80,8 @@ export class SqliteLotRepository implements LotRepository {
       insertLot: p('INSERT OR IGNORE INTO lots (lot_id, first_seen_at) VALUES (?, ?)'),
       product: p('SELECT product_id, set_at, set_by FROM lot_products WHERE lot_id = ? ORDER BY id DESC LIMIT 1'),
       insertProduct: p('INSERT INTO lot_products (lot_id, product_id, set_at, set_by, event_id) VALUES (?, ?, ?, ?, ?)'),
-      currentReadings: p(
-        `SELECT r.*, NULL AS superseded_by FROM lot_readings r
+      currentPoints: p(
+        `SELECT r.id, r.quantity, r.wafer, r.site, r.resistivity_ohm_cm FROM lot_readings r
          WHERE r.lot_id = ? AND NOT EXISTS (SELECT 1 FROM lot_readings s WHERE s.supersedes = r.id)
          ORDER BY r.id`,
       ),
@@ -136,7 +155,7 @@ export class SqliteLotRepository implements LotRepository {
       const lot = this.lotRecord(write.lotId);
       const state: LotState = {
         ...(lot ? { lot } : {}),
-        currentReadings: (this.st.currentReadings.all(write.lotId) as ReadingRow[]).map(readingFromRow),
+        currentReadings: (this.st.currentPoints.all(write.lotId) as PointRow[]).map(pointFromRow),
         openFlags: (this.st.openFlagsOfLot.all(write.lotId) as FlagRow[]).map(flagFromRow),
         ...(write.corrects !== undefined ? this.correctedReading(write.corrects) : {}),
       };
