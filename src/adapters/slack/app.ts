@@ -45,6 +45,9 @@ export class SlackStartError extends Error {
   }
 }
 
+/** How long stopping waits for answers in flight. */
+const STOP_GRACE_MS = 5000;
+
 /** Answers from auth.test that no retry will change. */
 const REJECTED = new Set(['invalid_auth', 'not_authed', 'account_inactive', 'token_revoked', 'token_expired', 'not_allowed_token_type']);
 
@@ -92,6 +95,29 @@ export function createSlackApp(options: SlackAppOptions): SlackRuntime {
       return { botToken, botId: me.botId, botUserId: me.botUserId, ...(me.teamId ? { teamId: me.teamId } : {}) };
     },
   });
+  // Work in flight, so that stopping lets answers being made finish before the store closes.
+  let inFlight = 0;
+  let drained: (() => void) | undefined;
+  app.use(async ({ next }) => {
+    inFlight += 1;
+    try {
+      await next();
+    } finally {
+      inFlight -= 1;
+      if (inFlight === 0) drained?.();
+    }
+  });
+  const drain = (ms: number): Promise<void> =>
+    inFlight === 0
+      ? Promise.resolve()
+      : new Promise<void>((resolve) => {
+          const timer = setTimeout(resolve, ms);
+          drained = () => {
+            clearTimeout(timer);
+            resolve();
+          };
+        });
+
   const listenerDeps = { ...deps, slashCommand: slack.slashCommand };
   registerCommands(app, listenerDeps);
   registerEvents(app, listenerDeps);
@@ -173,7 +199,8 @@ export function createSlackApp(options: SlackAppOptions): SlackRuntime {
     async stop() {
       readiness.slack = 'stopped';
       clearTimeout(retry);
-      await app.stop().catch(() => undefined);
+      await app.stop().catch(() => undefined); // no new requests
+      await drain(STOP_GRACE_MS); // answers already being made finish
       if (health) await new Promise<void>((resolve) => health!.close(() => resolve()));
       health = undefined;
     },

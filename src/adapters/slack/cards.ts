@@ -22,6 +22,14 @@ export function isExplainable(reply: Reply): boolean {
   return isShareable(reply) && reply.ok && reply.command !== 'why';
 }
 
+/**
+ * `handle` keeps results but not `why` answers (they restate an earlier result); their cards can
+ * still be shared, so the adapter keeps those itself.
+ */
+export function mustKeep(reply: Reply): reply is Extract<Reply, { ok: true }> {
+  return reply.ok && reply.command === 'why' && isShareable(reply);
+}
+
 export function actionsFor(reply: Reply, place: Place): CardAction[] {
   if (!isShareable(reply)) return [];
   const why: CardAction[] = isExplainable(reply) ? ['why'] : [];

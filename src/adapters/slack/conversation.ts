@@ -4,6 +4,7 @@
  */
 import { contextFor } from '../../app.js';
 import type { Reply } from '../../reply/reply.js';
+import { mustKeep } from './cards.js';
 import type { SlackDeps } from './deps.js';
 
 export interface Where {
@@ -40,6 +41,7 @@ export async function ask(deps: SlackDeps, text: string, where: Where): Promise<
   const session: { lastResultId?: string } = before ? { lastResultId: before } : {};
   const ctx = contextFor(deps, 'slack', { userId: where.userId, channelId: where.channelId }, session, where.eventKey);
   const reply = await deps.handle(text, ctx);
+  if (mustKeep(reply)) await deps.results.save(reply);
   return {
     reply,
     settle: async () => {

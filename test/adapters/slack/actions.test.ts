@@ -2,6 +2,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { COMMANDS } from '../../../src/commands/registry.js';
 import { SLACK_ACTION_IDS } from '../../../src/render/slack-blocks.js';
 import { checkMessageLimits } from '../../../src/render/slack/limits.js';
 import { THREAD_PICKER_CALLBACK } from '../../../src/adapters/slack/views/thread-picker.js';
@@ -280,5 +281,38 @@ describe('Show derivation', () => {
     await fake.until(() => fake.postsTo(share).length === 1);
     expect(fake.callsTo('chat.postMessage')).toHaveLength(1);
     expect(JSON.stringify(fake.callsTo('chat.postMessage')[0]!.params.blocks)).toContain(`\`${id}\``);
+  });
+});
+
+describe('buttons for the whole vocabulary', () => {
+  it('every help example whose card has buttons: Show derivation answers privately and Post in channel posts it', async () => {
+    const a = await start();
+    let cards = 0;
+    for (const example of COMMANDS.flatMap((c) => c.help.examples)) {
+      const trigger = `all-${++n}`;
+      const res = await sendToSlackEndpoint(a.eventsUrl, slashCommandBody({ text: example, triggerId: trigger, responseUrl: fake.responseUrl(trigger) }), {
+        secret: TEST_SIGNING_SECRET,
+        contentType: FORM,
+      });
+      const body = (await res.json()) as { blocks: { type: string; elements?: { action_id?: string; value?: string }[] }[] };
+      const buttons = body.blocks.find((b) => b.type === 'actions')?.elements ?? [];
+      if (buttons.length === 0) continue;
+      cards += 1;
+      const id = buttons[0]!.value!;
+      if (buttons.some((b) => b.action_id === SLACK_ACTION_IDS.why)) {
+        const why = await press(a, SLACK_ACTION_IDS.why, id);
+        await fake.until(() => fake.postsTo(why).length === 1);
+        const shown = fake.postsTo(why)[0]!.body;
+        expect(shown.response_type, example).toBe('ephemeral');
+        expect(checkMessageLimits({ text: String(shown.text), blocks: shown.blocks as never }), example).toEqual([]);
+      }
+      const before = fake.callsTo('chat.postMessage').length;
+      const share = await press(a, SLACK_ACTION_IDS.shareChannel, id);
+      await fake.until(() => fake.postsTo(share).length === 1);
+      expect(fake.callsTo('chat.postMessage'), example).toHaveLength(before + 1);
+      const posted = fake.callsTo('chat.postMessage').at(-1)!.params as Posted;
+      expect(JSON.stringify(posted.blocks), example).toContain(`\`${id}\``);
+    }
+    expect(cards).toBeGreaterThan(10);
   });
 });

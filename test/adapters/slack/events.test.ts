@@ -3,6 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { handle } from '../../../src/commands/handle.js';
+import { COMMANDS } from '../../../src/commands/registry.js';
 import type { Handler } from '../../../src/adapters/slack/index.js';
 import { checkMessageLimits } from '../../../src/render/slack/limits.js';
 import { SLACK_ACTION_IDS } from '../../../src/render/slack-blocks.js';
@@ -173,8 +174,45 @@ describe('direct message', () => {
     await deliver(a, dm('rho 8.2 ohm-cm p', { bot_id: 'B0OTHER', ts: '1930000202.000001' }), 'Ev13');
     await deliver(a, dm('rho 8.2 ohm-cm p', { subtype: 'message_changed', ts: '1930000203.000001' }), 'Ev14');
     await deliver(a, dm('ni 300K', { ts: '1930000204.000001' }), 'Ev15');
-    await fake.until(() => fake.callsTo('chat.postMessage').length === 1);
+    await fake.until(() => fake.callsTo('chat.postMessage').length >= 1);
     await new Promise((r) => setTimeout(r, 100));
     expect(c.texts).toEqual(['ni 300K']);
+    expect(fake.callsTo('chat.postMessage')).toHaveLength(1);
+  });
+});
+
+describe('the whole vocabulary', () => {
+  const examples = COMMANDS.flatMap((c) => c.help.examples);
+
+  it('every help example as a mention gets one answer in its thread (public card or private note), within limits', async () => {
+    const a = await start();
+    let i = 0;
+    for (const example of examples) {
+      i += 1;
+      const ts = `19300${String(10000 + i)}.000100`;
+      const before = fake.calls.length;
+      await deliver(a, mention(example, { ts, event_ts: ts }), `EvAll${i}`);
+      await fake.until(() => fake.calls.slice(before).some((c) => c.method === 'chat.postMessage' || c.method === 'chat.postEphemeral'));
+      const answers = fake.calls.slice(before).filter((c) => c.method === 'chat.postMessage' || c.method === 'chat.postEphemeral');
+      expect(answers, example).toHaveLength(1);
+      const p = answers[0]!.params as Posted;
+      expect(p.thread_ts, example).toBe(ts);
+      expect(checkMessageLimits({ text: String(p.text), blocks: p.blocks as never }), example).toEqual([]);
+    }
+  });
+
+  it('every help example in a DM gets one answer in the DM, within limits', async () => {
+    const a = await start();
+    let i = 0;
+    for (const example of examples) {
+      i += 1;
+      const ts = `19300${String(20000 + i)}.000100`;
+      const before = fake.callsTo('chat.postMessage').length;
+      await deliver(a, dm(example, { ts, event_ts: ts }), `EvDm${i}`);
+      await fake.until(() => fake.callsTo('chat.postMessage').length === before + 1);
+      const p = fake.callsTo('chat.postMessage').at(-1)!.params as Posted;
+      expect(p.channel, example).toBe('D0PRIYA');
+      expect(checkMessageLimits({ text: String(p.text), blocks: p.blocks as never }), example).toEqual([]);
+    }
   });
 });

@@ -84,8 +84,6 @@ export function registerActions(app: App, deps: ListenerDeps): void {
     };
     if (!(await deps.ledger.claim(where.eventKey))) return;
     const asked = await ask(deps, RESULT_ID.test(value) ? `why ${value}` : 'why', where);
-    // A derivation shown privately can itself be shared; keep it so its buttons work.
-    if (asked.reply.ok && isShareable(asked.reply)) await deps.results.save(asked.reply);
     const place = body.channel?.id?.startsWith('D') ? 'dm' : 'derivation';
     await toResponseUrl(deps.fetch, body.response_url, cardFor(asked.reply, place), 'add');
     await asked.settle();
