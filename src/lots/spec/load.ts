@@ -69,8 +69,9 @@ export function parseSpecText(text: string, source: string, options: { demo?: bo
       problems: parsed.error.issues.map((issue) => {
         const path = issue.path.map((p) => (typeof p === 'symbol' ? String(p) : p));
         // An unknown key: point at the key itself.
-        if (issue.code === 'unrecognized_keys' && issue.keys[0] !== undefined) path.push(issue.keys[0]);
-        const node = nodeAt(doc.contents, path);
+        const unknownKey = issue.code === 'unrecognized_keys' && issue.keys[0] !== undefined;
+        if (unknownKey) path.push(issue.keys[0]!);
+        const node = nodeAt(doc.contents, path, unknownKey);
         const pos = node?.range ? lineCounter.linePos(node.range[0]) : undefined;
         return {
           ...(pos ? { line: pos.line, column: pos.col } : {}),
@@ -122,7 +123,7 @@ function firstLine(message: string): string {
  * The deepest YAML node along `path` (map keys or sequence indices). When a field is missing,
  * this is its parent, so the line points where the field should go.
  */
-function nodeAt(root: unknown, path: readonly (string | number)[]): Node | undefined {
+function nodeAt(root: unknown, path: readonly (string | number)[], atKey = false): Node | undefined {
   let node = root as Node | null | undefined;
   let found: Node | undefined = node ?? undefined;
   for (const segment of path) {
@@ -132,7 +133,7 @@ function nodeAt(root: unknown, path: readonly (string | number)[]): Node | undef
       const value = pair.value as Node | null;
       const last = segment === path[path.length - 1];
       // Point at the key for a missing value or a whole block (the line that names it).
-      node = value === null || (last && (isMap(value) || isSeq(value))) ? (pair.key as Node) : value;
+      node = value === null || (last && (atKey || isMap(value) || isSeq(value))) ? (pair.key as Node) : value;
     } else if (isSeq(node) && typeof segment === 'number') {
       const item = node.items[segment] as Node | undefined;
       if (!item) return found;
