@@ -6,6 +6,7 @@ import { contextFor } from '../../app.js';
 import type { Reply } from '../../reply/reply.js';
 import { mustKeep } from './cards.js';
 import type { SlackDeps } from './deps.js';
+import { markAnswered } from './errors.js';
 
 export interface Where {
   readonly teamId: string | undefined;
@@ -45,8 +46,13 @@ export async function ask(deps: SlackDeps, text: string, where: Where): Promise<
   return {
     reply,
     settle: async () => {
-      if (session.lastResultId && session.lastResultId !== before) await deps.conversations.setLastResult(key, session.lastResultId);
-      await deps.ledger.complete(where.eventKey);
+      try {
+        if (session.lastResultId && session.lastResultId !== before) await deps.conversations.setLastResult(key, session.lastResultId);
+        await deps.ledger.complete(where.eventKey);
+      } catch (error) {
+        // The answer is out already: log this (global handler), don't tell the person it failed.
+        throw markAnswered(error);
+      }
     },
   };
 }

@@ -19,13 +19,36 @@ interface AnyBody {
   readonly event?: { channel?: string; user?: string; ts?: string; thread_ts?: string; channel_type?: string; type?: string };
 }
 
+/** The note the person gets when something on our side failed. */
+export function failureMessage(): ReturnType<typeof renderSlackMessage> {
+  return renderSlackMessage(errorReply('internal', INTERNAL_FAILURE), { helpHint: false });
+}
+
+const ANSWERED = Symbol('answered');
+
+/** A listener has already told the person about this error; the global handler only logs it. */
+export function markAnswered(error: unknown): unknown {
+  if (error && typeof error === 'object') Object.defineProperty(error, ANSWERED, { value: true });
+  return error;
+}
+
+/** Bolt wraps errors without a code (UnknownError, the original in `.original`). */
+function isAnswered(error: unknown): boolean {
+  const e = error as { [ANSWERED]?: boolean; original?: unknown } | undefined;
+  return Boolean(e && typeof e === 'object' && (e[ANSWERED] || (e.original !== e && isAnswered(e.original))));
+}
+
 export function installErrorHandler(app: App, deps: SlackDeps, client: webApi.WebClient): void {
-  const message = renderSlackMessage(errorReply('internal', INTERNAL_FAILURE), { helpHint: false });
+  const message = failureMessage();
   // With extendedErrorHandler: true, Bolt passes { error, logger, context, body }.
   const handler = async (args: { error: Error; body?: unknown }): Promise<void> => {
     const { error } = args;
     const body = (args.body ?? {}) as AnyBody;
-    deps.logger.error('unhandled error while answering Slack:', error);
+    if (isAnswered(error)) {
+      deps.logger.error('error while answering Slack (the person already has an answer):', error);
+      return;
+    }
+    deps.logger.error('unhandled error while answering Slack (telling the person):', error);
     try {
       const responseUrl = body.response_url ?? decodePickerState(body.view?.private_metadata)?.responseUrl;
       if (responseUrl) {

@@ -4,6 +4,7 @@ import { COMMANDS } from '../../../src/commands/registry.js';
 import { checkMessageLimits } from '../../../src/render/slack/limits.js';
 import { SLACK_ACTION_IDS } from '../../../src/render/slack-blocks.js';
 import type { Handler } from '../../../src/adapters/slack/index.js';
+import { MemoryConversationMemory } from '../../../src/store/conversations.js';
 import { FakeSlack } from './support/fake-slack.js';
 import { startTestApp, TEST_SIGNING_SECRET, type TestApp, type TestAppOptions } from './support/harness.js';
 import { FORM, sendToSlackEndpoint, slashCommandBody } from './support/signed.js';
@@ -128,5 +129,34 @@ describe('slash command', () => {
     const { body } = await slash(a, 'ni 300K', { command: '/probe' });
     expect(body.response_type).toBe('ephemeral');
     expect(JSON.stringify(body.blocks)).toContain('cm⁻³');
+  });
+});
+
+describe('when something fails on our side', () => {
+  it('before the acknowledgement: the private note is the acknowledgement, nothing else is sent', async () => {
+    const broken: Handler = async () => {
+      throw new Error('the physics module fell over');
+    };
+    const a = await start({ handle: broken });
+    const { status, body, trigger } = await slash(a, 'rho 8.2 ohm-cm p');
+    expect(status).toBe(200);
+    expect(body.response_type).toBe('ephemeral');
+    expect(JSON.stringify(body.blocks)).toContain('Something went wrong on our side');
+    await new Promise((r) => setTimeout(r, 100));
+    expect(fake.postsTo(trigger)).toEqual([]);
+    expect(a.logs.join('\n')).toContain('the physics module fell over');
+  });
+
+  it('after the answer is out (bookkeeping fails): the card stands, the failure is only logged', async () => {
+    class ForgetfulMemory extends MemoryConversationMemory {
+      override async setLastResult(): Promise<void> {
+        throw new Error('disk full while remembering the last result');
+      }
+    }
+    const a = await start({ overrides: { conversations: new ForgetfulMemory() } });
+    const { body, trigger } = await slash(a, 'ni 85C');
+    expect(JSON.stringify(body.blocks)).toContain('cm⁻³');
+    await fake.until(() => a.logs.some((l) => l.includes('disk full while remembering')));
+    expect(fake.postsTo(trigger)).toEqual([]);
   });
 });

@@ -3,7 +3,8 @@
  * goes out with the acknowledgement itself; if the answer takes longer than the ack deadline,
  * the ack says "working on it" and the card follows through the response URL.
  */
-import type { App } from '@slack/bolt';
+import type { AckFn, App, RespondArguments, SlashCommand } from '@slack/bolt';
+import { failureMessage, markAnswered } from '../errors.js';
 import { ask, eventKeys } from '../conversation.js';
 import { cardFor } from '../cards.js';
 import type { ListenerDeps } from '../deps.js';
@@ -13,7 +14,23 @@ import { toResponseUrl, within } from '../outbound.js';
 const WORKING = ':hourglass_flowing_sand: Working on it…';
 
 export function registerCommands(app: App, deps: ListenerDeps): void {
-  app.command(deps.slashCommand, async ({ command, ack }) => {
+  app.command(deps.slashCommand, async ({ command, ack: ackSlack }) => {
+    // Slack takes one acknowledgement; if something fails before it, the failure note is it.
+    let acked = false;
+    const ack: typeof ackSlack = async (body) => {
+      acked = true;
+      await ackSlack(body);
+    };
+    try {
+      await answer(command, ack);
+    } catch (error) {
+      if (acked) throw error; // the global handler answers through the response URL
+      await ackSlack({ response_type: 'ephemeral', ...failureMessage() });
+      throw markAnswered(error); // logged by the global handler, not answered twice
+    }
+  });
+
+  async function answer(command: SlashCommand, ack: (body?: Parameters<AckFn<string | RespondArguments>>[0]) => Promise<void>): Promise<void> {
     const where = {
       teamId: command.team_id,
       userId: command.user_id,
@@ -32,5 +49,5 @@ export function registerCommands(app: App, deps: ListenerDeps): void {
     const late = await pending;
     await toResponseUrl(deps.fetch, command.response_url, cardFor(late.reply, 'private', { helpHint }), 'replace');
     return late.settle();
-  });
+  }
 }
