@@ -8,7 +8,7 @@ import type { RecordResult } from '../../lots/service.js';
 import { okReply, type ReplyIdentity } from '../../reply/build.js';
 import { formatNumber } from '../../reply/format.js';
 import type { ReplyInput, ReplyOk, ReplyValue, ReplyWarning } from '../../reply/reply.js';
-import { checkText, DEMO_SPECS_NOTE, FLAG_TITLES, flagDetailText, flagLine, LOT_FLAG_CAUTION, noteText } from './wording.js';
+import { checkText, countValue, DEMO_SPECS_NOTE, FLAG_TITLES, flagDetailText, flagLine, LOT_FLAG_CAUTION, noteText } from './wording.js';
 
 export interface RecordReplyExtras {
   /** The resistivity was typed without a unit and read as Ω·cm. */
@@ -53,9 +53,10 @@ export function recordReply(identity: ReplyIdentity, result: RecordResult, extra
   const verdict = flagged ? 'flagged' : readings.length === 0 ? 'recorded' : readings.every((r) => r.verdict === 'no_verdict') ? 'no verdict' : 'pass';
   values.push({ key: 'verdict', value: verdict, unit: '', label: 'Verdict', headline: true });
   for (const r of readings) values.push(...readingValues(r));
-  if (readings.length > 0) {
-    values.push({ key: 'readingId', value: readings.map((r) => `#${r.id}`).join(', '), unit: '', label: readings.length > 1 ? 'Reading numbers' : 'Reading number' });
-  }
+  readings.forEach((r, i) => {
+    const typeToo = i > 0 && r.quantity === 'type';
+    values.push(countValue(typeToo ? 'typeReadingId' : 'readingId', r.id, typeToo ? 'Type reading number' : 'Reading number'));
+  });
 
   const inputs: Record<string, ReplyInput> = { lot: { value: outcome.lotId, label: 'Lot' } };
   if (first?.wafer !== undefined) inputs['wafer'] = { value: `w${first.wafer}`, label: 'Wafer' };

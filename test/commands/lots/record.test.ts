@@ -72,7 +72,7 @@ describe('record: pass or which flag', () => {
   it('record with "corrects" supersedes the earlier reading and closes its flags', async () => {
     const { ctx } = setup();
     const bad = ok(await handle('record LOT-A21 w5 rho 96 ohm-cm', ctx));
-    const id = String(value(bad, 'readingId')).replace('#', '');
+    const id = String(value(bad, 'readingId'));
     const fixed = ok(await handle(`record LOT-A21 w5 rho 9.6 ohm-cm corrects ${id}`, ctx));
     expect(value(fixed, 'verdict')).toBe('pass');
     expect(fixed.sections?.find((s) => s.heading === 'Flags')?.lines?.some((l) => l.startsWith('Closed:'))).toBe(true);
