@@ -64,7 +64,11 @@ export class DigestScheduler {
 
   /** Post a missed summary, then fire daily. */
   async start(): Promise<RunResult | undefined> {
-    const caught = await this.catchUp();
+    // A failed catch-up (a locked database, say) must not stop the daily job.
+    const caught = await this.catchUp().catch((e: unknown) => {
+      this.deps.onError?.(e, 'catching up the daily summary');
+      return undefined;
+    });
     this.job = new Cron(dailyPattern(this.deps.at), { timezone: this.deps.timeZone, unref: true, protect: true }, () => {
       void this.runDue().catch((e: unknown) => this.deps.onError?.(e, 'daily summary'));
     });
