@@ -9,6 +9,8 @@ import { MemoryResultStore } from '../src/commands/context.js';
 import { handle } from '../src/commands/handle.js';
 import { renderJson } from '../src/render/json.js';
 import { renderText } from '../src/render/text.js';
+// The same in-memory demo lot store (invented Harrowgate Fab 3 specs and history) the command tests use.
+import { demoLots } from '../test/helpers/lots.js';
 
 const EXAMPLES: readonly { heading: string; commands: readonly string[]; json?: boolean }[] = [
   { heading: 'Resistivity → dopant density (`rho`)', commands: ['rho 8.2 ohm-cm p', 'rho 0.012 Ω·cm arsenic'] },
@@ -20,6 +22,17 @@ const EXAMPLES: readonly { heading: string; commands: readonly string[]; json?: 
   { heading: 'Carriers at a temperature (`carriers`)', commands: ['carriers 1e15 boron at 150C', 'carriers 1e16 B and 3e15 P at 300K'] },
   { heading: 'Where the material turns intrinsic (`crossover`)', commands: ['crossover 1e15 boron'] },
   { heading: 'Diffused layers, Irvin\'s method (`layer`)', commands: ['layer 45 ohm/sq xj 0.8um erfc on 1e15 p', 'layer Cs 1e19 xj 0.8um gaussian on 1e15 p'] },
+  {
+    heading: 'Lot readings, flags and the daily summary (`record`, `lot`, `flags`, `clear`, `digest`) — invented demo lots',
+    commands: [
+      'record LOT-A17 w3 site 4 rho 12.9 ohm-cm',
+      'record LOT-B204 w6 type hot +1.4mV',
+      'lot LOT-A17',
+      'flags',
+      'clear LOT-B204 type w5 because repeat hot probe and SPV both read n-type; tip was contaminated',
+      'digest',
+    ],
+  },
   { heading: 'The derivation of a result (`why`)', commands: ['why r-000001'] },
   { heading: 'Models and sources (`models`)', commands: ['models', 'models masetti'] },
   { heading: 'Help (`help`)', commands: ['help', 'help sheet'] },
@@ -30,10 +43,12 @@ const JSON_EXAMPLES = ['rho 8.2 ohm-cm p', 'rho -8.2 ohm-cm p'];
 
 async function main(): Promise<void> {
   let n = 0;
+  const now = () => new Date('2026-11-30T14:05:00Z');
   const ctx = {
+    lots: demoLots(now).service,
     surface: 'cli' as const,
     caller: { userId: 'readme', channelId: 'readme' },
-    now: () => new Date('2026-11-30T14:05:00Z'),
+    now,
     newId: () => `r-${(++n).toString(16).padStart(6, '0')}`,
     results: new MemoryResultStore(),
     session: {},
