@@ -80,7 +80,7 @@ export class Args {
     for (let j = i; j < this.tokens.length; j++) this.used[j] = true;
     return this.tokens
       .slice(i + 1)
-      .map((t) => t.raw)
+      .map((t) => t.verbatim)
       .join(' ');
   }
 
