@@ -79,7 +79,7 @@ describe('clear', () => {
     const lot = ok(await handle('lot LOT-B204', ctx));
     expect(lot.title).toBe('LOT-B204 · NV-725N · no open flags');
     const cleared = lot.sections?.find((s) => s.heading?.startsWith('Cleared flags'))?.lines?.[0] ?? '';
-    expect(cleared).toContain('cleared by console: “repeat hot probe and SPV both read n-type tip was contaminated”');
+    expect(cleared).toContain('cleared by console: “repeat hot probe and SPV both read n-type; tip was contaminated”');
   });
 
   it('needs a reason, names the flag, and says which when there are several', async () => {
