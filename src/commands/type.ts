@@ -9,23 +9,10 @@ import { ArgError, type Args } from './args.js';
 import { identity } from './common.js';
 import { refusalMessage } from './describe.js';
 import { defineCommand } from './spec.js';
-import { CARRIER_TYPE_WORDS, MATERIAL_LABEL, MATERIAL_WORDS } from './words.js';
+import { CARRIER_TYPE_WORDS, MATERIAL_LABEL, MATERIAL_WORDS, POLARITY_WORDS, PROBE_METHOD_WORDS } from './words.js';
 import type { Dimension } from './units.js';
 
-const METHODS = {
-  hot: 'hot',
-  'hot-probe': 'hot',
-  thermal: 'hot',
-  cold: 'cold',
-  'cold-probe': 'cold',
-  hall: 'hall',
-  point: 'point',
-  'point-contact': 'point',
-  rectification: 'point',
-  rect: 'point',
-  spv: 'spv',
-  photovoltage: 'spv',
-} as const;
+const METHODS = PROBE_METHOD_WORDS;
 type Method = (typeof METHODS)[keyof typeof METHODS];
 
 const METHOD_NAMES: Record<Method, string> = {
@@ -36,7 +23,6 @@ const METHOD_NAMES: Record<Method, string> = {
   spv: 'surface photovoltage',
 };
 
-const POLARITY_WORDS = { '+': 1, positive: 1, pos: 1, plus: 1, '-': -1, negative: -1, neg: -1, minus: -1 } as const;
 
 export const TypeRequest = z.object({
   method: z.enum(['hot', 'cold', 'hall', 'point', 'spv']),

@@ -50,3 +50,23 @@ export const MATERIAL_LABEL: Readonly<Record<Material, string>> = {
   Ge: 'germanium',
   GaAs: 'gallium arsenide',
 };
+
+/** Probe methods for a conductivity-type reading, as people name them. */
+export const PROBE_METHOD_WORDS = {
+  hot: 'hot',
+  'hot-probe': 'hot',
+  thermal: 'hot',
+  cold: 'cold',
+  'cold-probe': 'cold',
+  hall: 'hall',
+  point: 'point',
+  'point-contact': 'point',
+  rectification: 'point',
+  rect: 'point',
+  spv: 'spv',
+  photovoltage: 'spv',
+} as const;
+export type ProbeMethodWord = (typeof PROBE_METHOD_WORDS)[keyof typeof PROBE_METHOD_WORDS];
+
+/** The polarity of a point contact at easy conduction. */
+export const POLARITY_WORDS = { '+': 1, positive: 1, pos: 1, plus: 1, '-': -1, negative: -1, neg: -1, minus: -1 } as const;

@@ -11,6 +11,7 @@ import { formatNumber } from '../../reply/format.js';
 import { ArgError, type Args } from '../args.js';
 import { identity } from '../common.js';
 import { defineCommand } from '../spec.js';
+import { POLARITY_WORDS, PROBE_METHOD_WORDS, type ProbeMethodWord } from '../words.js';
 import type { Dimension, Quantity } from '../units.js';
 import { actorOf, lotsOf, NOT_SET_UP, takeLotId, takeSite, takeWafer } from './parse.js';
 import { recordReply } from './record-reply.js';
@@ -27,21 +28,8 @@ const USAGE =
   'record <lot> [w<n>] [site <n>] rho <ρ> | sheet <Rs> thick <t> | type <hot|cold|hall|point|spv> <reading> | type n|p  [at <T>] [product <id>] [corrects <#>]';
 const EXAMPLE = 'record LOT-A17 w3 rho 8.4 ohm-cm';
 
-const TYPE_METHOD_WORDS: Readonly<Record<string, 'hot' | 'cold' | 'hall' | 'point' | 'spv'>> = {
-  hot: 'hot',
-  'hot-probe': 'hot',
-  thermal: 'hot',
-  cold: 'cold',
-  'cold-probe': 'cold',
-  hall: 'hall',
-  point: 'point',
-  'point-contact': 'point',
-  rectification: 'point',
-  spv: 'spv',
-  photovoltage: 'spv',
-};
+const TYPE_METHOD_WORDS: Readonly<Record<string, ProbeMethodWord>> = PROBE_METHOD_WORDS;
 const STATED_TYPE_WORDS: Readonly<Record<string, 'n' | 'p'>> = { n: 'n', p: 'p', 'n-type': 'n', 'p-type': 'p', ntype: 'n', ptype: 'p' };
-const POLARITY_WORDS: Readonly<Record<string, 1 | -1>> = { '+': 1, positive: 1, plus: 1, '-': -1, negative: -1, minus: -1 };
 
 function checkRange(what: string, q: Quantity, limits: { min: number; max: number }, unit: string, scale = 1): void {
   if (!(q.value > 0)) throw new ArgError('bad_value', `${what} must be a positive number; "${q.raw}" is not. ${EXAMPLE}`);
