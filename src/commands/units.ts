@@ -98,7 +98,24 @@ const TEMPERATURE_WORDS: Record<string, string> = {
   k: 'K', kelvin: 'K', f: 'degF', '°f': 'degF', degf: 'degF',
 };
 
+/**
+ * Readings of unit texts, remembered: people type the same few units over and over, and a
+ * mathjs parse costs tens of microseconds. Bounded so junk input cannot grow it without end.
+ */
+const UNIT_CACHE = new Map<string, UnitReading | { error: string }>();
+const UNIT_CACHE_LIMIT = 2000;
+
 function readUnit(unitText: string, expected?: Dimension): UnitReading | { error: string } {
+  const key = `${expected ?? ''}\u0000${unitText}`;
+  const hit = UNIT_CACHE.get(key);
+  if (hit) return hit;
+  const reading = readUnitUncached(unitText, expected);
+  if (UNIT_CACHE.size >= UNIT_CACHE_LIMIT) UNIT_CACHE.clear();
+  UNIT_CACHE.set(key, reading);
+  return reading;
+}
+
+function readUnitUncached(unitText: string, expected?: Dimension): UnitReading | { error: string } {
   const u = normaliseUnitText(unitText);
   const sheet = SHEET.exec(u);
   if (sheet) {
@@ -129,11 +146,9 @@ function readUnit(unitText: string, expected?: Dimension): UnitReading | { error
   }
   for (const [dimension, canonical] of CANONICAL_MATHJS) {
     if (parsed.equalBase(mathUnit(canonical))) {
-      return {
-        dimension,
-        convert: (n) => mathUnit(n, u.replace(/\bcm(\d)\b/g, 'cm^$1').replace(/\bm(\d)\b/g, 'm^$1')).toNumber(canonical),
-        display: u,
-      };
+      // These units are all proportional (no offset): one factor converts any value.
+      const factor = parsed.toNumber(canonical);
+      return { dimension, convert: (n) => n * factor, display: u };
     }
   }
   return { error: `"${unitText}" is not a unit I can use here` };
