@@ -1,8 +1,9 @@
 /**
  * Slash-command latency over loopback: shiftprobe's Slack app (real handle, card rendering,
- * exactly-once ledger and result store in a SQLite file with WAL and synchronous=FULL) against a
- * bare Bolt app that acknowledges a constant, in the same run, requests interleaved so both see
- * the same machine. Each request is signed (v0) and timed from send to the full response.
+ * exactly-once ledger and result store in a SQLite file, chat state at synchronous=NORMAL)
+ * against a bare Bolt app that acknowledges a constant, in the same run, each in its own server
+ * process (bench/slack.server.ts), requests interleaved so both see the same machine. Each
+ * request is signed (v0) and timed from send to the full response.
  *
  *   npm run bench:slack                 (BENCH_N=2000 requests per app by default)
  *   BENCH_N=5000 npm run bench:slack
@@ -10,16 +11,12 @@
  * Target: our p99 ≤ 1.2 × the bare app's p99.
  */
 import { mkdtempSync, rmSync } from 'node:fs';
-import type { Server } from 'node:http';
-import type { AddressInfo } from 'node:net';
+import { fork } from 'node:child_process';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
-import { Writable } from 'node:stream';
-import { App, HTTPReceiver, LogLevel } from '@slack/bolt';
-import { startSlack } from '../src/adapters/slack/index.js';
+import { fileURLToPath } from 'node:url';
 import { COMMANDS } from '../src/commands/registry.js';
-import { loadConfig } from '../src/config.js';
 import { FakeSlack } from '../test/adapters/slack/support/fake-slack.js';
 import { FORM, sendToSlackEndpoint, slashCommandBody } from '../test/adapters/slack/support/signed.js';
 
@@ -46,44 +43,25 @@ function stats(samples: number[]): Stats {
   return { p50: quantile(s, 0.5), p90: quantile(s, 0.9), p99: quantile(s, 0.99), max: s.at(-1)!, mean: s.reduce((a, b) => a + b, 0) / s.length };
 }
 
-async function bareBolt(fake: FakeSlack): Promise<{ url: string; stop: () => Promise<void> }> {
-  const receiver = new HTTPReceiver({ signingSecret: SECRET, logLevel: LogLevel.ERROR });
-  const app = new App({ token: BOT_TOKEN, receiver, logLevel: LogLevel.ERROR, clientOptions: { slackApiUrl: fake.apiUrl } });
-  app.command('/shiftprobe', async ({ ack }) => ack('ok'));
-  const server = (await app.start({ port: 0, host: '127.0.0.1' })) as Server;
-  return { url: `http://127.0.0.1:${(server.address() as AddressInfo).port}/slack/events`, stop: async () => {
-      await app.stop();
+/** Each app in its own process, as in production: one app's garbage collection never lands on the other's requests. */
+async function server(mode: 'ours' | 'bare', fake: FakeSlack, databasePath: string): Promise<{ url: string; stop: () => Promise<void> }> {
+  const child = fork(fileURLToPath(new URL('./slack.server.ts', import.meta.url)), [mode, fake.apiUrl, databasePath], {
+    execArgv: ['--import', 'tsx'],
+    env: { ...process.env, BENCH_BOT_TOKEN: BOT_TOKEN, BENCH_SIGNING_SECRET: SECRET },
+    stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
+  });
+  const port = await new Promise<number>((resolve, reject) => {
+    child.once('message', (m) => resolve((m as { port: number }).port));
+    child.once('exit', (code) => reject(new Error(`${mode} server exited with ${code}`)));
+  });
+  return {
+    url: `http://127.0.0.1:${port}/slack/events`,
+    stop: async () => {
+      const exited = new Promise((r) => child.once('exit', r));
+      child.send('stop');
+      await exited;
     },
   };
-}
-
-async function ourApp(fake: FakeSlack, dir: string): Promise<{ url: string; stop: () => Promise<void> }> {
-  const loaded = loadConfig({
-    SLACK_BOT_TOKEN: BOT_TOKEN,
-    SLACK_SIGNING_SECRET: SECRET,
-    SLACK_API_URL: fake.apiUrl,
-    PORT: '0',
-    HOST: '127.0.0.1',
-    LOG_LEVEL: 'error',
-    DATABASE_PATH: join(dir, 'bench.db'),
-  });
-  if (!loaded.ok) throw new Error(loaded.problems.map((p) => p.message).join('; '));
-  let stop: () => void = () => undefined;
-  const stopSignal = new Promise<void>((r) => (stop = r));
-  let port = 0;
-  const up = new Promise<void>((resolve) => {
-    const running = startSlack(loaded.config, {
-      io: { stderr: new Writable({ write: (_c, _e, done) => done() }) },
-      stopSignal,
-      onReady: (info) => {
-        port = info.port;
-        resolve();
-      },
-    });
-    void running;
-  });
-  await up;
-  return { url: `http://127.0.0.1:${port}/slack/events`, stop: async () => stop() };
 }
 
 let trigger = 0;
@@ -130,8 +108,8 @@ async function main(): Promise<void> {
   const fake = new FakeSlack();
   await fake.start();
   const dir = mkdtempSync(join(tmpdir(), 'shiftprobe-bench-'));
-  const ours = await ourApp(fake, dir);
-  const bare = await bareBolt(fake);
+  const ours = await server('ours', fake, join(dir, 'bench.db'));
+  const bare = await server('bare', fake, '');
   try {
     console.log(`node ${process.version}, ${process.platform}/${process.arch}`);
     const single = await run('slash command "rho 8.2 ohm-cm p"', ['rho 8.2 ohm-cm p'], ours.url, bare.url);
