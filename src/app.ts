@@ -28,9 +28,12 @@ export interface Services {
 /** A problem that stops start-up (e.g. a bad spec file), with the message to print. */
 export class StartupError extends Error {}
 
-/** Result ids: 'r-' and 6 random hex digits (short enough to type into `why`). */
+/**
+ * Result ids: 'r-' and 8 random hex digits, short enough to type into `why`; a clash with an
+ * older result (likely only after tens of thousands) is caught by the store and re-drawn.
+ */
 export function randomResultId(): string {
-  return `r-${randomBytes(3).toString('hex')}`;
+  return `r-${randomBytes(4).toString('hex')}`;
 }
 
 export function openServices(

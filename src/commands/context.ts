@@ -7,8 +7,17 @@ import type { ReplyOk } from '../reply/reply.js';
 
 export type Surface = 'console' | 'cli' | 'slack' | 'teams';
 
+/** A store refuses to save a different reply under an id already taken (the caller picks another id). */
+export class ResultIdTakenError extends Error {
+  constructor(readonly resultId: string) {
+    super(`result id ${resultId} is already used by another result`);
+    this.name = 'ResultIdTakenError';
+  }
+}
+
 /** Where replies are kept so that `why <id>` and chat buttons work later (and after a restart). */
 export interface ResultStore {
+  /** Saving the same reply twice is a no-op; a different reply under a taken id throws ResultIdTakenError. */
   save(reply: ReplyOk): Promise<void>;
   get(id: string): Promise<ReplyOk | undefined>;
 }
@@ -38,6 +47,8 @@ export interface HandleContext {
 export class MemoryResultStore implements ResultStore {
   private readonly byId = new Map<string, ReplyOk>();
   async save(reply: ReplyOk): Promise<void> {
+    const existing = this.byId.get(reply.id);
+    if (existing && JSON.stringify(existing) !== JSON.stringify(reply)) throw new ResultIdTakenError(reply.id);
     this.byId.set(reply.id, reply);
   }
   async get(id: string): Promise<ReplyOk | undefined> {

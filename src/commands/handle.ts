@@ -3,9 +3,9 @@
  * Reply too (never a stack trace): bad input gets the right form and an example.
  */
 import { errorReply } from '../reply/build.js';
-import type { Reply } from '../reply/reply.js';
+import type { Reply, ReplyOk } from '../reply/reply.js';
 import { ArgError, Args } from './args.js';
-import type { HandleContext } from './context.js';
+import { ResultIdTakenError, type HandleContext } from './context.js';
 import { findCommand, knownVerbs } from './registry.js';
 import { suggest } from './suggest.js';
 import { MAX_INPUT_CHARS, tokenize, type Token } from './tokens.js';
@@ -26,9 +26,9 @@ const IMPLIED_VERB: Partial<Record<Dimension, string>> = {
 
 export async function handle(text: string, ctx: HandleContext): Promise<Reply> {
   try {
-    const reply = await dispatch(text, ctx);
+    let reply = await dispatch(text, ctx);
     if (reply.ok && !NOT_RESULTS.has(reply.command)) {
-      await ctx.results.save(reply);
+      reply = await keep(reply, ctx);
       ctx.session.lastResultId = reply.id;
     }
     return reply;
@@ -39,6 +39,20 @@ export async function handle(text: string, ctx: HandleContext): Promise<Reply> {
       'internal',
       'Something went wrong on our side while answering that. Nothing was recorded. Please try again; if it keeps happening, tell whoever runs shiftprobe.',
     );
+  }
+}
+
+/** Keep a result; on the rare clash of a random id with an older result, take a fresh id. */
+async function keep(reply: ReplyOk, ctx: HandleContext): Promise<ReplyOk> {
+  let current = reply;
+  for (let attempt = 0; ; attempt++) {
+    try {
+      await ctx.results.save(current);
+      return current;
+    } catch (e) {
+      if (!(e instanceof ResultIdTakenError) || attempt >= 4) throw e;
+      current = { ...current, id: ctx.newId() };
+    }
   }
 }
 

@@ -20,8 +20,9 @@ export function formatNumber(value: number, options: FormatOptions = {}): string
   const sig = options.sigFigs ?? 3;
   if (!Number.isFinite(value)) return String(value);
   if (value === 0) return '0';
-  const abs = Math.abs(value);
-  if (abs >= 1e-3 && abs < 1e4) {
+  // Decide the notation on the rounded value: 9999.7 at 3 figures is 1.00×10⁴, not "10000".
+  const rounded = Math.abs(Number(value.toPrecision(sig)));
+  if (rounded >= 1e-3 && rounded < 1e4) {
     const s = value.toPrecision(sig);
     if (s.includes('e') || options.trim) return Number(s).toString();
     return s;

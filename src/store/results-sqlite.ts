@@ -6,7 +6,7 @@
  * event), but saving a different reply under an id already taken throws `ResultIdTakenError`,
  * so an id collision can never make an old card's buttons show someone else's result.
  */
-import type { ResultStore } from '../commands/context.js';
+import { ResultIdTakenError, type ResultStore } from '../commands/context.js';
 import type { ReplyOk } from '../reply/reply.js';
 import type { Db, Migration } from './db.js';
 
@@ -22,12 +22,7 @@ export const resultStoreMigrations: readonly Migration[] = [
   },
 ];
 
-export class ResultIdTakenError extends Error {
-  constructor(readonly resultId: string) {
-    super(`result id ${resultId} is already used by another result`);
-    this.name = 'ResultIdTakenError';
-  }
-}
+export { ResultIdTakenError } from '../commands/context.js';
 
 export class SqliteResultStore implements ResultStore {
   private readonly insert;

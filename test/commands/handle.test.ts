@@ -134,3 +134,16 @@ describe('handle: property — no input string crashes the parser', () => {
     );
   });
 });
+
+describe('handle: result ids', () => {
+  it('a random id that clashes with an older result is re-drawn, never an error', async () => {
+    const ids = ['r-aaaaaa', 'r-aaaaaa', 'r-bbbbbb'];
+    const ctx = testContext({ newId: () => ids.shift() ?? 'r-cccccc' });
+    const first = await handle('rho 8.2 ohm-cm p', ctx);
+    const second = await handle('doping 1e16 P', ctx);
+    expect(first.ok && first.id).toBe('r-aaaaaa');
+    expect(second.ok && second.id).toBe('r-bbbbbb');
+    const why = await handle('why r-aaaaaa', ctx);
+    expect(why.ok && why.title).toContain('Boron');
+  });
+});
