@@ -109,12 +109,15 @@ export interface ReadingDraft {
   readonly wafer?: number;
   readonly site?: number;
   readonly quantity: Quantity;
+  /** The text as entered ('8.4 ohm-cm', '45 ohm/sq thick 525um', 'hot -1.2mV'). */
   readonly asEntered: string;
+  /** Canonical value: Ω·cm, Ω/□, or V / cm³/C / ±1 for type readings (0 for a stated type). */
   readonly value: number;
   readonly unit: string;
   readonly thicknessCm?: number;
   readonly spacingCm?: number;
   readonly typeMethod?: string;
+  /** Resistivity used for the checks (as read, or from sheet × thickness). */
   readonly resistivityOhmCm?: number;
   readonly dopantDensityPerCm3?: number;
   readonly carrierType?: 'n' | 'p' | 'indeterminate';

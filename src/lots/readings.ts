@@ -4,7 +4,7 @@
  */
 import { z } from 'zod';
 import { SITE_MAX, SITE_MIN, WAFER_MAX, WAFER_MIN } from './ids.js';
-import type { ReadingEvaluation } from './evaluation.js';
+import type { ReadingDraft } from './evaluation.js';
 
 /** Sanity bounds: a value outside them is a typing or unit slip, not a silicon reading. */
 export const LIMITS = {
@@ -107,34 +107,16 @@ export interface Actor {
 }
 
 /** One stored reading. Never updated: a correction is a new reading that `supersedes` this one. */
-export interface StoredReading {
+/** A reading as kept: the draft that was checked, plus who, when, where from and what it corrects. */
+export interface StoredReading extends ReadingDraft {
   readonly id: number;
   readonly lotId: string;
-  readonly wafer?: number;
-  readonly site?: number;
-  readonly quantity: Quantity;
-  /** The text as entered ('8.4 ohm-cm', '45 ohm/sq thick 525um', 'hot -1.2mV'). */
-  readonly asEntered: string;
-  /** Canonical value: Ω·cm, Ω/□, or V / cm³/C / ±1 for type readings (0 for a stated type). */
-  readonly value: number;
-  readonly unit: string;
-  readonly thicknessCm?: number;
-  readonly spacingCm?: number;
-  readonly typeMethod?: string;
-  /** Resistivity used for the checks (as read, or from sheet × thickness). */
-  readonly resistivityOhmCm?: number;
-  readonly dopantDensityPerCm3?: number;
-  readonly carrierType?: 'n' | 'p' | 'indeterminate';
-  readonly temperatureK?: number;
-  readonly verdict: Verdict;
-  readonly evaluation: ReadingEvaluation;
   readonly supersedes?: number;
   /** Filled when read back: the reading that corrected this one. */
   readonly supersededBy?: number;
   readonly actor: Actor;
   readonly eventId: string;
   readonly recordedAt: string;
-  readonly note?: string;
 }
 
 export type Verdict = 'pass' | 'flagged' | 'no_verdict';
