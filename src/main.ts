@@ -101,13 +101,7 @@ async function startConsole(config: Config, io: MainIo): Promise<number> {
 }
 
 async function startSlackSurface(config: Config, io: MainIo): Promise<number> {
-  // The Slack adapter is loaded only when configured, so the console needs none of it.
-  const slack = (await import('./adapters/slack/index.js').catch(() => undefined)) as
-    | { startSlack(config: Config, deps: { io: MainIo }): Promise<number> }
-    | undefined;
-  if (!slack) {
-    io.stderr.write('shiftprobe: Slack settings are present but the Slack adapter is not available in this build.\n');
-    return 78;
-  }
-  return slack.startSlack(config, { io });
+  // The Slack adapter is loaded only when configured, so the console and the CLI never load Bolt.
+  const { startSlack } = await import('./adapters/slack/index.js');
+  return startSlack(config, { io });
 }

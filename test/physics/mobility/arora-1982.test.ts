@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
+import { decades } from '../../helpers/ranges.js';
 import { ELEMENTARY_CHARGE_C } from '../../../src/physics/constants.js';
 import {
   arora1982,
@@ -10,11 +11,6 @@ import {
 import { masetti1983 } from '../../../src/physics/mobility/masetti-1983.js';
 import { f723BoronResistivityOhmCm, f723PhosphorusResistivityOhmCm } from '../../../src/physics/resistivity/astm-f723.js';
 
-const decades = (from: number, to: number, step = 0.25) => {
-  const out: number[] = [];
-  for (let u = from; u <= to + 1e-9; u += step) out.push(Math.pow(10, u));
-  return out;
-};
 
 describe('Arora, Hauser & Roulston 1982 mobility', () => {
   // Source: Arora, Hauser, Roulston, IEEE TED ED-29, 292 (1982), the published expression

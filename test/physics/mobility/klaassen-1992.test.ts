@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
+import { decades } from '../../helpers/ranges.js';
 import { ELEMENTARY_CHARGE_C } from '../../../src/physics/constants.js';
 import { arora1982 } from '../../../src/physics/mobility/arora-1982.js';
 import {
@@ -14,11 +15,6 @@ import {
 import { masetti1983 } from '../../../src/physics/mobility/masetti-1983.js';
 import { f723BoronResistivityOhmCm, f723PhosphorusResistivityOhmCm } from '../../../src/physics/resistivity/astm-f723.js';
 
-const decades = (from: number, to: number, step = 0.25) => {
-  const out: number[] = [];
-  for (let u = from; u <= to + 1e-9; u += step) out.push(Math.pow(10, u));
-  return out;
-};
 
 const electronIn = (nd: number, na: number, n: number, p: number, T: number) =>
   klaassenElectronMobilityCm2PerVs({ donorDensityPerCm3: nd, acceptorDensityPerCm3: na, electronDensityPerCm3: n, holeDensityPerCm3: p, temperatureK: T, donor: 'phosphorus' });
