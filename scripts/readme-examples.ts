@@ -14,7 +14,7 @@ import { demoLots } from '../test/helpers/lots.js';
 
 const EXAMPLES: readonly { heading: string; commands: readonly string[]; json?: boolean }[] = [
   { heading: 'Resistivity → dopant density (`rho`)', commands: ['rho 8.2 ohm-cm p', 'rho 0.012 Ω·cm arsenic'] },
-  { heading: 'Dopant density → resistivity (`doping`)', commands: ['doping 3.1x10^16 cm^-3 P'] },
+  { heading: 'Dopant density → resistivity (`doping`)', commands: ['doping 3.1x10^16 cm^-3 phos'] },
   { heading: 'Four-point probe (`sheet`)', commands: ['sheet 4.1mV 1mA thick 725um spacing 1mm diam 200mm p', 'sheet 45 ohm/sq thick 525um n'] },
   { heading: 'Conductivity type (`type`)', commands: ['type hot -1.4mV rho 12 ohm-cm expect n', 'type hall -1.3e3 cm3/C', 'type point forward +'] },
   { heading: 'Intrinsic carrier density (`ni`)', commands: ['ni 85C', 'ni 400K Ge'] },

@@ -9,13 +9,39 @@ export class ArgError extends Error {
   constructor(
     readonly code: string,
     message: string,
+    /** A corrected whole command to offer ("did you mean"), when one is known. */
+    readonly suggestion?: string,
   ) {
     super(message);
   }
 }
 
+/** One answer to a question: what to show, the short answer a person types, and the token it replaces. */
+export interface AskChoice {
+  readonly label: string;
+  readonly answer: string;
+  /** Token replacements that turn the command into this reading ('' removes the token). */
+  readonly edits: readonly { readonly token: Token; readonly replacement: string }[];
+}
+
+/**
+ * A word with two readings a practitioner would use: the reply asks one short question, with
+ * each reading's whole command ready to copy (or a button), and nothing is computed or stored.
+ */
+export class AskError extends ArgError {
+  constructor(
+    code: string,
+    question: string,
+    readonly choices: readonly AskChoice[],
+  ) {
+    super(code, question);
+  }
+}
+
 export class Args {
   private readonly used: boolean[];
+  /** Sentences for the reply: units that were assumed or converted while reading. */
+  readonly notes: string[] = [];
   constructor(readonly tokens: readonly Token[]) {
     this.used = tokens.map(() => false);
   }
@@ -106,6 +132,26 @@ export class Args {
     return undefined;
   }
 
+  /** Every unused word that `map` knows, mapped and consumed, in the order typed. */
+  allWords<T>(map: Readonly<Record<string, T>>): { value: T; raw: string; text: string; token: Token }[] {
+    const out: { value: T; raw: string; text: string; token: Token }[] = [];
+    for (let i = 0; i < this.tokens.length; i++) {
+      const t = this.tokens[i]!;
+      if (this.used[i] || t.kind !== 'word') continue;
+      const hit = lookup(map, t.text);
+      if (hit !== undefined) {
+        this.used[i] = true;
+        out.push({ value: hit, raw: t.raw, text: t.text, token: t });
+      }
+    }
+    return out;
+  }
+
+  /** Unused word tokens (for "did you mean" and uncovered-word answers); nothing is consumed. */
+  unusedWords(): (Token & { kind: 'word' })[] {
+    return this.tokens.filter((t, i): t is Token & { kind: 'word' } => !this.used[i] && t.kind === 'word');
+  }
+
   /** The first unused token of any kind whose text as typed `map` knows ("24h", "7d"), mapped. */
   literal<T>(map: Readonly<Record<string, T>>): { value: T; raw: string } | undefined {
     for (let i = 0; i < this.tokens.length; i++) {
@@ -136,8 +182,10 @@ export class Args {
         return { ...this.read(t, dimensions[0]!, undefined), bareNumber: true };
       }
       const q = parseQuantity(`${t.value} ${t.unitText}`, dimensions[0]);
+      if (!q.ok && q.reason === 'ambiguous_unit') throw new ArgError('ambiguous_unit', q.message);
       if (q.ok && dimensions.includes(q.quantity.dimension)) {
         this.used[i] = true;
+        if (q.quantity.note) this.notes.push(q.quantity.note);
         return { ...q.quantity, raw: t.raw, bareNumber: false };
       }
     }
@@ -167,7 +215,7 @@ export class Args {
     const q = parseQuantity(t.kind === 'number' ? `${t.value} ${t.unitText}` : t.raw, dimension);
     const what = key ? `"${key}"` : 'the value';
     if (!q.ok) {
-      throw new ArgError(q.reason === 'not_finite' ? 'not_finite' : 'bad_unit', `${q.message}; ${what} takes ${DIMENSIONS[dimension].name}, e.g. ${DIMENSIONS[dimension].example}`);
+      throw new ArgError(q.reason === 'not_finite' ? 'not_finite' : q.reason === 'ambiguous_unit' ? 'ambiguous_unit' : 'bad_unit', `${q.message}; ${what} takes ${DIMENSIONS[dimension].name}, e.g. ${DIMENSIONS[dimension].example}`);
     }
     if (q.quantity.dimension !== dimension) {
       throw new ArgError(
@@ -175,12 +223,16 @@ export class Args {
         `"${t.raw}" is ${DIMENSIONS[q.quantity.dimension].name}, but ${what} takes ${DIMENSIONS[dimension].name} (e.g. ${DIMENSIONS[dimension].example})`,
       );
     }
+    if (q.quantity.note) this.notes.push(q.quantity.note);
     return { ...q.quantity, raw: t.raw };
   }
 }
 
-/** Case-sensitive hit first (so "P" and "p" can differ), then case-insensitive. */
-function lookup<T>(map: Readonly<Record<string, T>>, text: string): T | undefined {
+/**
+ * Case-sensitive hit first (so "As" and "as" can differ), then case-insensitive. Only the map's
+ * own keys count: "constructor" or "__proto__" typed by a person is just an unknown word.
+ */
+export function lookup<T>(map: Readonly<Record<string, T>>, text: string): T | undefined {
   if (Object.hasOwn(map, text)) return map[text];
   const lower = text.toLowerCase();
   for (const k of Object.keys(map)) if (k.toLowerCase() === lower) return map[k];

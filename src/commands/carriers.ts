@@ -50,7 +50,7 @@ export const carriersCommand = defineCommand<CarriersRequest>({
       'carriers 1e16 B and 3e15 P at 300K',
       'carriers 2e17 arsenic at 77K',
       'carriers 1e14 n at 600K',
-      'carriers 5e15 P at 250K Ge',
+      'carriers 5e15 phos at 250K Ge',
       'carriers 1e16 boron at 400K model arora',
     ],
     options: [

@@ -30,6 +30,25 @@ export interface Caller {
   readonly channelId: string;
 }
 
+/** Side effects a command reports while it runs (see handle.ts: a failure is worded from these). */
+export interface EffectLog {
+  /** About to store `what` ("reading for LOT-A17 w3"); `check` says how to look ("lot LOT-A17 shows it"). */
+  willStore(what: string, check?: string): void;
+  /** `what` is stored and committed ("reading #41 for LOT-A17 w3"). */
+  didStore(what: string): void;
+}
+
+/** Where a surface's failures are logged, with their cause (a Bolt logger fits). */
+export interface FailureLog {
+  error(...args: unknown[]): void;
+}
+
+/** A question the last reply asked: typing one of the answers runs its command. */
+export interface PendingChoice {
+  readonly answer: string;
+  readonly command: string;
+}
+
 export interface HandleContext {
   readonly surface: Surface;
   readonly caller: Caller;
@@ -39,7 +58,11 @@ export interface HandleContext {
   readonly newId: () => string;
   readonly results: ResultStore;
   /** Per-conversation memory: the last result id, for a bare `why`. */
-  readonly session: { lastResultId?: string };
+  readonly session: { lastResultId?: string; pendingChoices?: readonly PendingChoice[] | undefined };
+  /** The surface's log for failures; stderr when absent. */
+  readonly log?: FailureLog;
+  /** Set by `handle` for the duration of one request. */
+  readonly effects?: EffectLog;
   /** Lot records (record, lot, flags, clear, digest); absent where no lot store is wired. */
   readonly lots?: LotService;
 }

@@ -27,11 +27,11 @@ const EXAMPLE = 'crossover 1e15 boron';
 
 export const crossoverCommand = defineCommand<CrossoverRequest>({
   verb: 'crossover',
-  aliases: ['intrinsic-temperature', 'tint'],
+  aliases: ['intrinsic-temperature'],
   help: {
     summary: 'The temperature at which doped material turns intrinsic (n_i equals the net doping), with the n_i model named.',
     usage: USAGE,
-    examples: ['crossover 1e15 boron', 'crossover 5e16 P', 'crossover 1e16 P and 4e15 B', 'crossover 1e14 n Ge', 'crossover 1e15 p model sproul-green'],
+    examples: ['crossover 1e15 boron', 'crossover 5e16 phos', 'crossover 1e16 P and 4e15 B', 'crossover 1e14 n Ge', 'crossover 1e15 p model sproul-green'],
     options: [
       'N: dopant density (cm⁻³); with two dopants the net doping |N_D − N_A| is used',
       'Si (default), Ge or GaAs',

@@ -28,7 +28,7 @@ export const dopingCommand = defineCommand<DopingRequest>({
   help: {
     summary: 'Dopant density → resistivity at 23 °C (silicon), with the mobility it implies.',
     usage: USAGE,
-    examples: ['doping 2e15 boron', 'doping 3.1x10^16 cm^-3 P', 'doping 1.5×10¹⁸ /cm3 arsenic', 'doping 5e14 n model caughey-thomas', '2e15 cm-3 B'],
+    examples: ['doping 2e15 boron', 'doping 3.1x10^16 cm^-3 phos', 'doping 1.5×10¹⁸ /cm3 arsenic', 'doping 5e14 n model caughey-thomas', '2e15 cm-3 B'],
     options: ['a bare number is read as cm⁻³', 'model <id>: another conversion (see `models`)'],
     seeAlso: ['rho', 'models', 'why'],
   },

@@ -11,7 +11,7 @@ import { MODEL_ESTIMATE } from '../reply/cautions.js';
 import { formatNumber } from '../reply/format.js';
 import { assumptionText } from '../reply/messages.js';
 import type { ReplyInput, ReplyValue } from '../reply/reply.js';
-import { ArgError } from './args.js';
+import { ArgError, lookup } from './args.js';
 import { DopantSchema, identity, readModelId } from './common.js';
 import { parameterRows, refusalMessage } from './describe.js';
 import { defineCommand } from './spec.js';
@@ -74,6 +74,16 @@ export const layerCommand = defineCommand<LayerRequest>({
     seeAlso: ['sheet', 'rho', 'why'],
   },
   schema: LayerRequest,
+  // The layer is of the type opposite to its background, so a lone "P" cannot be both: on a
+  // p background it is phosphorus, on an n background it means a p-type layer.
+  lonePRule(tokens) {
+    const i = tokens.findIndex((t) => t.kind === 'word' && ['on', 'background', 'bg', 'substrate'].includes(t.text.toLowerCase()));
+    const word = i >= 0 ? tokens[i + 2] : undefined;
+    if (!word || word.kind !== 'word' || word.text === 'P') return undefined;
+    const background = lookup(DOPANT_WORDS, word.text);
+    if (!background) return undefined;
+    return DOPANT_TYPE[background] === 'p' ? 'phosphorus' : 'p-type';
+  },
   parse(args) {
     const asTyped: Record<string, string> = {};
     const xj = args.keyed(['xj', 'junction', 'depth'], 'length');

@@ -46,7 +46,7 @@ const EXAMPLE = 'sheet 45 ohm/sq thick 525um n';
 
 export const sheetCommand = defineCommand<SheetRequest>({
   verb: 'sheet',
-  aliases: ['4pp', 'fourpoint', 'rs'],
+  aliases: ['4pp', 'four-point', 'fourpoint', '4pt', 'rs'],
   help: {
     summary: 'Four-point-probe reading → sheet resistance, resistivity and dopant density, with each geometry factor.',
     usage: USAGE,

@@ -7,6 +7,7 @@ import type { z } from 'zod';
 import type { Reply } from '../reply/reply.js';
 import type { Args } from './args.js';
 import type { HandleContext } from './context.js';
+import type { LonePRule } from './conductivity-words.js';
 
 export interface HelpEntry {
   /** One line: what the command answers. */
@@ -27,6 +28,8 @@ export interface CommandSpec<Req = unknown> {
   readonly schema: z.ZodType<Req>;
   /** Read the tokens after the verb into a candidate request (checked by `schema`). */
   parse(args: Args, ctx: HandleContext): unknown;
+  /** How a lone capital "P" reads in this command when its other words decide (default: asked). */
+  readonly lonePRule?: LonePRule;
   run(request: Req, ctx: HandleContext): Promise<Reply> | Reply;
 }
 

@@ -42,6 +42,8 @@ export interface Quantity {
   readonly unitAsTyped: string;
   /** The whole text the person typed for it. */
   readonly raw: string;
+  /** A sentence for the reply when the unit was assumed or converted. */
+  readonly note?: string;
 }
 
 const SUPERSCRIPTS: Record<string, string> = {
@@ -74,38 +76,72 @@ interface UnitReading {
   /** Multiply the typed number by this (or apply `convert`) to get the canonical value. */
   readonly convert: (n: number) => number;
   readonly display: string;
+  /** Said in the reply when the unit was assumed or converted ("ohm read as Ω·cm"). */
+  readonly note?: (n: number) => string;
+}
+
+type UnitProblem = { error: string; ambiguous?: boolean };
+
+/**
+ * All-capitals units ("OHM-CM", "KOHM-CM", "UM", "MV") are read in their usual case: prefixes
+ * lower-case, V, A, C and K upper-case. "MOHM" stays ambiguous (milli or mega?) and is asked.
+ */
+function fromCapitals(text: string): string {
+  if (/[a-zµ]/.test(text) || !/[A-Z]/.test(text)) return text;
+  return text
+    .toLowerCase()
+    .replace(/\b([mun]?)v\b/g, '$1V')
+    .replace(/\b([mun]?)a\b/g, '$1A')
+    .replace(/\/\s*c\b/g, '/C')
+    .replace(/^k$/, 'K')
+    .replace(/^c$/, 'C');
 }
 
 /** Unit text → mathjs unit text, or a special reading (sheet, %/K, temperature words). */
 function normaliseUnitText(text: string): string {
-  return text
+  return fromCapitals(text.replace(/[Ωω]/g, 'ohm'))
     .replace(/[µμ]/g, 'u')
-    .replace(/Ω/g, 'ohm')
     .replace(/\bohms\b/gi, 'ohm')
+    .replace(/ohms(?=[^a-z]|$)/gi, 'ohm')
+    .replace(/ohm/gi, 'ohm')
+    .replace(/\bK(?=ohm)/g, 'k')
     .replace(/[⁰¹²³⁴⁵⁶⁷⁸⁹⁻⁺]+/g, (m) => '^' + [...m].map((c) => SUPERSCRIPTS[c]).join(''))
     .replace(/[−–]/g, '-')
     .replace(/ohm\s*[-·.*⋅]\s*/gi, 'ohm ')
     .replace(/ohm(?=[a-z])/gi, 'ohm ')
+    .replace(/\bcm\s*-\s*3\b/g, 'cm-3')
     .trim();
 }
 
-const SHEET = /^(?:m|k)?ohm\s*(?:\/\s*(?:sq|square|□|sqr)|per\s+(?:sq|square)|_?sq)$/i;
+const SHEET = /^([mkM]?)ohm\s*(?:\/\s*(?:sq|square|□|sqr)|per\s+(?:sq|square)|_?sq|\s+sq)$|^\/\s*(?:sq|□)$/;
 const DENSITY = /^(?:(?:atoms?|carriers?)\s*)?(?:\/\s*cm\^?3|per\s+cm\^?3|cm\s*\^?\s*-\s*3|cm\^-3)$/i;
 const TC = /^(%|ppm)\s*(?:\/|per\s+)\s*(?:K|degC|°C|C)$/i;
 const PER_K = /^(?:1\s*)?\/\s*K$/i;
-const TEMPERATURE_WORDS: Record<string, string> = {
-  c: 'degC', '°c': 'degC', degc: 'degC', 'deg c': 'degC', celsius: 'degC',
-  k: 'K', kelvin: 'K', f: 'degF', '°f': 'degF', degf: 'degF',
-};
+const TEMPERATURE_WORDS: ReadonlyMap<string, string> = new Map([
+  ['c', 'degC'], ['°c', 'degC'], ['° c', 'degC'], ['degc', 'degC'], ['deg c', 'degC'], ['deg. c', 'degC'], ['degrees c', 'degC'],
+  ['degree c', 'degC'], ['deg celsius', 'degC'], ['degrees celsius', 'degC'], ['celsius', 'degC'], ['c°', 'degC'],
+  ['k', 'K'], ['kelvin', 'K'], ['kelvins', 'K'],
+  ['f', 'degF'], ['°f', 'degF'], ['degf', 'degF'], ['deg f', 'degF'], ['degrees f', 'degF'], ['fahrenheit', 'degF'],
+]);
+/** Lengths people write that mathjs spells otherwise (or not at all). */
+const LENGTH_WORDS: ReadonlyMap<string, { cm: number; display: string; note?: string }> = new Map([
+  ['micron', { cm: 1e-4, display: 'µm' }],
+  ['microns', { cm: 1e-4, display: 'µm' }],
+  ['micrometer', { cm: 1e-4, display: 'µm' }],
+  ['micrometre', { cm: 1e-4, display: 'µm' }],
+  ['mil', { cm: 2.54e-3, display: 'mil', note: 'mil' }],
+  ['mils', { cm: 2.54e-3, display: 'mil', note: 'mil' }],
+  ['thou', { cm: 2.54e-3, display: 'mil', note: 'mil' }],
+]);
 
 /**
  * Readings of unit texts, remembered: people type the same few units over and over, and a
  * mathjs parse costs tens of microseconds. Bounded so junk input cannot grow it without end.
  */
-const UNIT_CACHE = new Map<string, UnitReading | { error: string }>();
+const UNIT_CACHE = new Map<string, UnitReading | UnitProblem>();
 const UNIT_CACHE_LIMIT = 2000;
 
-function readUnit(unitText: string, expected?: Dimension): UnitReading | { error: string } {
+function readUnit(unitText: string, expected?: Dimension): UnitReading | UnitProblem {
   const key = `${expected ?? ''}\u0000${unitText}`;
   const hit = UNIT_CACHE.get(key);
   if (hit) return hit;
@@ -115,12 +151,26 @@ function readUnit(unitText: string, expected?: Dimension): UnitReading | { error
   return reading;
 }
 
-function readUnitUncached(unitText: string, expected?: Dimension): UnitReading | { error: string } {
+function readUnitUncached(unitText: string, expected?: Dimension): UnitReading | UnitProblem {
+  if (/^\s*M\s*OHM/.test(unitText) && !/[a-z]/.test(unitText)) {
+    return { error: `"${unitText}": milliohm or megaohm? Write mΩ (milli) or MΩ (mega), e.g. 3.3 mohm-cm`, ambiguous: true };
+  }
   const u = normaliseUnitText(unitText);
   const sheet = SHEET.exec(u);
   if (sheet) {
-    const scale = /^m/i.test(u) ? 1e-3 : /^k/i.test(u) ? 1e3 : 1;
-    return { dimension: 'sheetResistance', convert: (n) => n * scale, display: u.replace(/\s+/g, '') };
+    const prefix = sheet[1] ?? '';
+    const scale = prefix === 'm' ? 1e-3 : prefix === 'k' ? 1e3 : prefix === 'M' ? 1e6 : 1;
+    return { dimension: 'sheetResistance', convert: (n) => n * scale, display: `${prefix === 'k' ? 'k' : prefix}Ω/□` };
+  }
+  // A bare "ohm" is read by what the command expects, and the reply says so.
+  if (/^ohm$/.test(u)) {
+    if (expected === 'resistivity') {
+      return { dimension: 'resistivity', convert: (n) => n, display: 'Ω·cm', note: (n) => `"${n} ${unitText}" read as ${n} Ω·cm (a resistivity); give the unit as ohm-cm to be exact.` };
+    }
+    if (expected === 'sheetResistance') {
+      return { dimension: 'sheetResistance', convert: (n) => n, display: 'Ω/□', note: (n) => `"${n} ${unitText}" read as ${n} Ω/□ (a sheet resistance); give the unit as ohm/sq to be exact.` };
+    }
+    return { error: `"${unitText}" alone could be a resistivity (ohm-cm) or a sheet resistance (ohm/sq)`, ambiguous: true };
   }
   if (DENSITY.test(u)) return { dimension: 'density', convert: (n) => n, display: 'cm⁻³' };
   const tc = TC.exec(u);
@@ -129,13 +179,26 @@ function readUnitUncached(unitText: string, expected?: Dimension): UnitReading |
     return { dimension: 'temperatureCoefficient', convert: (n) => n * scale, display: `${tc[1]}/K` };
   }
   if (PER_K.test(u)) return { dimension: 'temperatureCoefficient', convert: (n) => n, display: '1/K' };
-  const tempWord = TEMPERATURE_WORDS[u.toLowerCase()];
+  const tempWord = TEMPERATURE_WORDS.get(u.toLowerCase().replace(/\s+/g, ' '));
   // A bare "C" is a temperature only where one is expected (otherwise it would be coulombs).
   if (tempWord && (u.toLowerCase() !== 'c' || expected === 'temperature' || expected === undefined)) {
+    const toK = (n: number) => mathUnit(n, tempWord).toNumber('K');
     return {
       dimension: 'temperature',
-      convert: (n) => mathUnit(n, tempWord).toNumber('K'),
+      convert: toK,
       display: tempWord === 'degC' ? '°C' : tempWord === 'degF' ? '°F' : 'K',
+      ...(tempWord === 'degF'
+        ? { note: (n: number) => `${n} °F converted to ${Math.round((toK(n) - 273.15) * 10) / 10} °C.` }
+        : {}),
+    };
+  }
+  const length = LENGTH_WORDS.get(u.toLowerCase());
+  if (length) {
+    return {
+      dimension: 'length',
+      convert: (n) => n * length.cm,
+      display: length.display,
+      ...(length.note ? { note: (n: number) => `${n} mil (thousandths of an inch) converted to ${Math.round(n * 25.4 * 10) / 10} µm.` } : {}),
     };
   }
   let parsed: Unit;
@@ -165,7 +228,7 @@ const CANONICAL_MATHJS: readonly (readonly [Dimension, string])[] = [
 
 export type QuantityParse =
   | { ok: true; quantity: Quantity }
-  | { ok: false; reason: 'not_a_number' | 'unknown_unit' | 'not_finite'; message: string };
+  | { ok: false; reason: 'not_a_number' | 'unknown_unit' | 'not_finite' | 'ambiguous_unit'; message: string };
 
 /**
  * Parse "8.2 ohm-cm", "1.5x10^15 cm^-3", "27C". A number with no unit takes `defaultDimension`
@@ -185,12 +248,21 @@ export function parseQuantity(text: string, expected?: Dimension): QuantityParse
     };
   }
   const reading = readUnit(split.rest, expected);
-  if ('error' in reading) return { ok: false, reason: 'unknown_unit', message: reading.error };
+  if ('error' in reading) return { ok: false, reason: reading.ambiguous ? 'ambiguous_unit' : 'unknown_unit', message: reading.error };
   const value = reading.convert(split.number);
   if (!Number.isFinite(value)) {
     return { ok: false, reason: 'not_finite', message: `"${text}" is too large to be a measured value` };
   }
-  return { ok: true, quantity: { dimension: reading.dimension, value, unitAsTyped: reading.display, raw: text } };
+  return {
+    ok: true,
+    quantity: {
+      dimension: reading.dimension,
+      value,
+      unitAsTyped: reading.display,
+      raw: text,
+      ...(reading.note ? { note: reading.note(split.number) } : {}),
+    },
+  };
 }
 
 /** A bare number takes the canonical unit of the expected dimension (temperature: K; coefficient: %/K). */
@@ -201,5 +273,5 @@ function defaultUnitValue(dimension: Dimension, n: number): number {
 /** Whether `text` (one or more words) reads as a unit at all: used by the tokenizer to glue units to numbers. */
 export function looksLikeUnit(text: string): boolean {
   const r = readUnit(text);
-  return !('error' in r);
+  return !('error' in r) || r.ambiguous === true;
 }

@@ -1,4 +1,7 @@
-/** Trade words people type, mapped to the core's vocabulary. Case-sensitive first: "P" is phosphorus, "p" is p-type. */
+/**
+ * Trade words people type, mapped to the core's vocabulary. A lone capital "P" never reaches
+ * these tables: src/commands/conductivity-words.ts reads it as a type, as phosphorus, or asks.
+ */
 import type { CarrierType, Dopant, Material } from '../physics/types.js';
 
 export const DOPANT_WORDS: Readonly<Record<string, Dopant>> = {
@@ -8,11 +11,13 @@ export const DOPANT_WORDS: Readonly<Record<string, Dopant>> = {
   n: 'phosphorus',
   'n-type': 'phosphorus',
   ntype: 'phosphorus',
+  b: 'boron',
   boron: 'boron',
   B: 'boron',
   phosphorus: 'phosphorus',
+  phosphorous: 'phosphorus',
   phos: 'phosphorus',
-  P: 'phosphorus',
+  'phos.': 'phosphorus',
   arsenic: 'arsenic',
   As: 'arsenic',
   antimony: 'antimony',
@@ -21,6 +26,31 @@ export const DOPANT_WORDS: Readonly<Record<string, Dopant>> = {
 
 /** Whether the word named only a type (then the dopant is the default for that type). */
 export const TYPE_ONLY_WORDS = new Set(['p', 'p-type', 'ptype', 'n', 'n-type', 'ntype']);
+
+/** Dopants people name that the resistivity conversions do not cover, for a clear answer. */
+export const UNCOVERED_DOPANT_WORDS: Readonly<Record<string, string>> = {
+  Ga: 'gallium',
+  gallium: 'gallium',
+  In: 'indium',
+  indium: 'indium',
+  Al: 'aluminium',
+  aluminium: 'aluminium',
+  aluminum: 'aluminium',
+  Bi: 'bismuth',
+  bismuth: 'bismuth',
+  Li: 'lithium',
+  lithium: 'lithium',
+};
+
+/** Materials people name that the resistivity conversions do not cover. */
+export const UNCOVERED_MATERIAL_WORDS: Readonly<Record<string, string>> = {
+  Ge: 'germanium',
+  germanium: 'germanium',
+  GaAs: 'gallium arsenide',
+  SiC: 'silicon carbide',
+  GaN: 'gallium nitride',
+  InP: 'indium phosphide',
+};
 
 export const MATERIAL_WORDS: Readonly<Record<string, Material>> = {
   Si: 'Si',

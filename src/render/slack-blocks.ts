@@ -25,6 +25,10 @@ export const SLACK_ACTION_IDS = {
   shareThread: 'shiftprobe_share_thread',
   why: 'shiftprobe_why',
 } as const;
+
+/** A question's answer buttons: action id prefix + index; each value is the whole command to run. */
+export const SLACK_CHOICE_ACTION_PREFIX = 'shiftprobe_choice_';
+export const SLACK_CHOICE_ACTION = /^shiftprobe_choice_\d+$/;
 export type CardAction = keyof typeof SLACK_ACTION_IDS;
 
 const BUTTON_TEXT: Readonly<Record<CardAction, string>> = {
@@ -174,6 +178,20 @@ function renderError(reply: ReplyError, options: SlackCardOptions): SlackMessage
   if (e.usage) lines.push(`${bold('Form')}  ${codeSpan(e.usage)}`);
   if (e.example) lines.push(`${bold('Example')}  ${codeSpan(e.example)}`);
   if (lines.length > 0) blocks.push(textSection(lines));
+  if (e.choices && e.choices.length > 0) {
+    blocks.push({
+      type: 'actions',
+      block_id: 'shiftprobe_choices',
+      elements: e.choices.slice(0, 5).map((c, i) => ({
+        type: 'button',
+        action_id: `${SLACK_CHOICE_ACTION_PREFIX}${i}`,
+        text: { type: 'plain_text', text: fitPlain(c.label, SLACK_LIMITS.buttonText), emoji: false },
+        value: c.command.slice(0, SLACK_LIMITS.buttonValue),
+      })),
+    });
+    blocks.push(context(e.choices.map((c) => `${escapeMrkdwn(c.label)}: ${codeSpan(c.command)}`).join('\n')));
+    return { text: fitMrkdwn(escapeMrkdwn(e.message), SLACK_LIMITS.fallbackText), blocks };
+  }
   if (options.helpHint !== false) {
     const help = options.helpHint ? codeSpan(options.helpHint) : '`help`';
     blocks.push(context(`${help} lists every command and its examples.`));

@@ -33,11 +33,44 @@ function wrap(text: string, width: number, indent: string): string {
   return lines.map((l, i) => (i === 0 ? indent : hang) + l).join('\n');
 }
 
-function table(columns: readonly string[], rows: readonly (readonly string[])[], indent: string): string[] {
+function table(columns: readonly string[], rows: readonly (readonly string[])[], indent: string, width = 0): string[] {
   const widths = columns.map((c, i) => Math.max(c.length, ...rows.map((r) => (r[i] ?? '').length)));
+  const total = indent.length + widths.reduce((a, b) => a + b, 0) + 2 * (widths.length - 1);
+  if (width > 0 && total > width) return narrowTable(columns, rows, indent, width, widths);
   const fmt = (cells: readonly string[]) =>
     indent + cells.map((c, i) => (i === cells.length - 1 ? c : c.padEnd(widths[i]!))).join('  ').trimEnd();
   return [fmt(columns), indent + widths.map((w) => '─'.repeat(w)).join('  '), ...rows.map(fmt)];
+}
+
+/**
+ * A table wider than the screen: the leading columns keep their width and the last column
+ * wraps under itself; if even that does not fit, each row becomes a small block of
+ * "column: value" lines.
+ */
+function narrowTable(
+  columns: readonly string[],
+  rows: readonly (readonly string[])[],
+  indent: string,
+  width: number,
+  widths: readonly number[],
+): string[] {
+  const lead = widths.slice(0, -1).reduce((a, b) => a + b + 2, 0);
+  const room = width - indent.length - lead;
+  if (room >= 24) {
+    const pad = indent + ' '.repeat(lead);
+    const fmt = (cells: readonly string[]): string => {
+      const head = indent + cells.slice(0, -1).map((c, i) => c.padEnd(widths[i]!)).join('  ') + (cells.length > 1 ? '  ' : '');
+      const wrapped = wrap(cells[cells.length - 1] ?? '', room + pad.length, pad).slice(pad.length);
+      return (head + wrapped).trimEnd();
+    };
+    return [fmt(columns), indent + widths.map((w, i) => '─'.repeat(i === widths.length - 1 ? Math.min(w, room) : w)).join('  '), ...rows.map(fmt)];
+  }
+  const out: string[] = [];
+  for (const r of rows) {
+    out.push(wrap(`• ${columns[0]}: ${r[0] ?? ''}`, width, indent));
+    for (let i = 1; i < columns.length; i++) out.push(wrap(`${columns[i]}: ${r[i] ?? ''}`, width, indent + '  '));
+  }
+  return out;
 }
 
 export function sectionText(s: ReplySection, width: number): string[] {
@@ -45,7 +78,7 @@ export function sectionText(s: ReplySection, width: number): string[] {
   if (s.heading) out.push(`  ${s.heading}`);
   const indent = s.heading ? '    ' : '  ';
   for (const l of s.lines ?? []) out.push(wrap(l, width, indent));
-  if (s.table) out.push(...table(s.table.columns, s.table.rows, indent));
+  if (s.table) out.push(...table(s.table.columns, s.table.rows, indent, width));
   return out;
 }
 
@@ -89,6 +122,12 @@ function okText(r: ReplyOk, width: number): string {
 
 function errorText(r: ReplyError, width: number): string {
   const e = r.error;
+  if (e.choices && e.choices.length > 0) {
+    const out = [wrap(`? ${e.message}`, width, '')];
+    for (const c of e.choices) out.push(wrap(`• ${c.label}:  ${c.command}`, width, '  '));
+    out.push(wrap(`Type ${e.choices.map((c) => `“${c.answer}”`).join(' or ')} to answer, or the whole command.`, width, '  '));
+    return out.join('\n');
+  }
   const out = [wrap(`✗ ${e.message}`, width, '')];
   if (e.suggestion) out.push(`  Did you mean: ${e.suggestion}?`);
   if (e.usage) out.push(`  Form:    ${e.usage}`);

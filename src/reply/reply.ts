@@ -76,6 +76,13 @@ export interface ReplyOk {
   readonly decision: boolean;
 }
 
+/** One answer to a question the bot asks: the short answer to type, and the whole command it runs. */
+export interface ReplyChoice {
+  readonly label: string;
+  readonly answer: string;
+  readonly command: string;
+}
+
 export interface ReplyError {
   readonly ok: false;
   readonly error: {
@@ -84,8 +91,10 @@ export interface ReplyError {
     /** The right form, e.g. 'rho <value> <unit> <dopant>'. */
     readonly usage?: string;
     readonly example?: string;
-    /** "did you mean" candidate. */
+    /** "did you mean" candidate: the whole corrected command. */
     readonly suggestion?: string;
+    /** When the bot asks (a word with two readings): each reading, ready to run. */
+    readonly choices?: readonly ReplyChoice[];
   };
 }
 

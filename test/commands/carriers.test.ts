@@ -38,17 +38,17 @@ describe('carriers command', () => {
   });
 
   it('warns about heavy doping and degeneracy, and covers Ge without resistivity', async () => {
-    const heavy = await ok('carriers 5e19 P at 300K');
+    const heavy = await ok('carriers 5e19 phos at 300K');
     const codes = heavy.warnings.map((w) => w.code);
     expect(codes).toEqual(expect.arrayContaining(['ionization_model_limit', 'degenerate']));
-    const ge = await ok('carriers 5e15 P at 250K Ge');
+    const ge = await ok('carriers 5e15 phos at 250K Ge');
     expect(value(ge, 'resistivityOhmCm')).toBeUndefined();
     expect(ge.warnings.map((w) => w.code)).toEqual(expect.arrayContaining(['unverified_parameter', 'quantity_not_covered']));
   });
 
   it('gives a friendly error with the right form for GaAs, a missing dopant and a bare temperature', async () => {
     for (const [text, code] of [
-      ['carriers 1e15 P at 300K GaAs', 'not_covered'],
+      ['carriers 1e15 phos at 300K GaAs', 'not_covered'],
       ['carriers 1e15 at 300K', 'missing_dopant'],
       ['carriers 1e15 boron 300', 'missing_dopant'],
       ['carriers 1e15 boron and 2e15 at 300K', 'missing_dopant'],

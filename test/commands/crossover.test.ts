@@ -26,7 +26,7 @@ describe('crossover command', () => {
   });
 
   it('refuses a doping too high to turn intrinsic below the melting point', async () => {
-    const r = await handle('crossover 1e21 P', testContext());
+    const r = await handle('crossover 1e21 phos', testContext());
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.error.code).toBe('outside_domain');
   });

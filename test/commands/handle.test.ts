@@ -56,7 +56,7 @@ describe('handle: verbs and order-free tokens', () => {
   it('why explains the last result and a result by id', async () => {
     const ctx = testContext();
     const first = await handle('rho 8.2 ohm-cm p', ctx);
-    await handle('doping 1e16 P', ctx);
+    await handle('doping 1e16 phos', ctx);
     expect(first.ok).toBe(true);
     const last = await handle('why', ctx);
     expect(last.ok && last.title).toContain('r-000002');
@@ -69,11 +69,11 @@ describe('handle: bad input gets a clear error with the right form', () => {
   it('empty input', async () => {
     expect((await err('   ')).code).toBe('empty');
   });
-  it('unknown verb with a did-you-mean', async () => {
+  it('unknown verb with a did-you-mean: the whole corrected command', async () => {
     const e = await err('rhp 8.2 ohm-cm p');
     expect(e.code).toBe('unknown_command');
-    expect(e.suggestion).toBe('rho');
-    expect((await err('dopign 2e15 B')).suggestion).toBe('doping');
+    expect(e.suggestion).toBe('rho 8.2 ohm-cm p');
+    expect((await err('dopign 2e15 B')).suggestion).toBe('doping 2e15 B');
   });
   it('negative and zero resistivity are refused, not converted', async () => {
     expect((await err('rho -8.2 ohm-cm p')).message).toMatch(/greater than zero/);
@@ -140,7 +140,7 @@ describe('handle: result ids', () => {
     const ids = ['r-aaaaaa', 'r-aaaaaa', 'r-bbbbbb'];
     const ctx = testContext({ newId: () => ids.shift() ?? 'r-cccccc' });
     const first = await handle('rho 8.2 ohm-cm p', ctx);
-    const second = await handle('doping 1e16 P', ctx);
+    const second = await handle('doping 1e16 phos', ctx);
     expect(first.ok && first.id).toBe('r-aaaaaa');
     expect(second.ok && second.id).toBe('r-bbbbbb');
     const why = await handle('why r-aaaaaa', ctx);

@@ -71,8 +71,10 @@ export const clearCommand = defineCommand<ClearCommandRequest>({
   async run(req, ctx) {
     const lots = lotsOf(ctx);
     if (!lots) return errorReply('lots_unavailable', NOT_SET_UP);
+    ctx.effects?.willStore(`the clearing of the flag on ${req.lotId}`, `"lot ${req.lotId}" shows which flags are open.`);
     const r = await lots.clear(req, { actor: actorOf(ctx), ...(ctx.eventId ? { eventId: ctx.eventId } : {}) });
     if (!r.ok) return lotErrorReply(r.error, { usage: USAGE, example: EXAMPLE });
+    ctx.effects?.didStore(`the clearing of ${r.value.outcome.cleared.map((f) => flagHandle(f.id)).join(', ')} on ${r.value.outcome.lotId}`);
     const { outcome, duplicate } = r.value;
     const n = outcome.cleared.length;
     return okReply(identity(ctx), {

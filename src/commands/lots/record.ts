@@ -29,6 +29,7 @@ const USAGE =
 const EXAMPLE = 'record LOT-A17 w3 rho 8.4 ohm-cm';
 
 const TYPE_METHOD_WORDS: Readonly<Record<string, ProbeMethodWord>> = PROBE_METHOD_WORDS;
+const MERGED_TYPE_WORDS: Readonly<Record<string, 'n' | 'p'>> = { 'n-type': 'n', 'p-type': 'p' };
 const STATED_TYPE_WORDS: Readonly<Record<string, 'n' | 'p'>> = { n: 'n', p: 'p', 'n-type': 'n', 'p-type': 'p', ntype: 'n', ptype: 'p' };
 
 function checkRange(what: string, q: Quantity, limits: { min: number; max: number }, unit: string, scale = 1): void {
@@ -102,8 +103,14 @@ export const recordCommand = defineCommand<RecordCommandRequest>({
     const thick = args.keyed(['thick', 'thickness'], 'length');
     const spacing = args.keyed(['spacing', 'pitch'], 'length');
     const temperature = args.keyed(['at', 'temp', 'temperature'], 'temperature');
-    const typeWord = args.keyedWord(['type']);
-    const typeReading = typeWord !== undefined ? readTypeReading(args, typeWord) : undefined;
+    // "type p", "P-type", "type=N" arrive as one word ("p-type", as typed in raw).
+    const merged = args.word(MERGED_TYPE_WORDS);
+    const typeWord = merged ? undefined : args.keyedWord(['type']);
+    const typeReading = merged
+      ? ({ kind: 'stated-type', carrierType: merged.value, asEntered: merged.raw } as const)
+      : typeWord !== undefined
+        ? readTypeReading(args, typeWord)
+        : undefined;
 
     // A reading without its key: "record LOT-A17 w3 8.4 ohm-cm", "… 45 ohm/sq thick 525um".
     let bare = rho ?? sheet ? undefined : args.quantity(['resistivity', 'sheetResistance']);
@@ -169,8 +176,12 @@ export const recordCommand = defineCommand<RecordCommandRequest>({
   async run(req, ctx) {
     const lots = lotsOf(ctx);
     if (!lots) return errorReply('lots_unavailable', NOT_SET_UP);
+    const where = `${req.record.lotId}${req.record.wafer !== undefined ? ` w${req.record.wafer}` : ''}${req.record.site !== undefined ? ` site ${req.record.site}` : ''}`;
+    ctx.effects?.willStore(`your reading for ${where}`, `"lot ${req.record.lotId}" shows what is stored.`);
     const r = await lots.record(req.record, { actor: actorOf(ctx), ...(ctx.eventId ? { eventId: ctx.eventId } : {}) });
     if (!r.ok) return lotErrorReply(r.error, { usage: USAGE, example: EXAMPLE });
+    const numbers = r.value.outcome.readings.map((x) => `#${x.id}`);
+    ctx.effects?.didStore(numbers.length > 0 ? `your reading ${numbers.join(', ')} for ${where}` : `the record for ${where}`);
     return recordReply(identity(ctx), r.value, { bareNumber: req.bareNumber, asTyped: req.asTyped });
   },
 });

@@ -267,7 +267,7 @@ describe('Show derivation', () => {
     dirs.push(dir);
     const databasePath = join(dir, 'shiftprobe.db');
     const before = await start({ databasePath, firstId: 0x100 });
-    const id = await cardFor(before, 'doping 3.1x10^16 cm^-3 P');
+    const id = await cardFor(before, 'doping 3.1x10^16 cm^-3 phos');
     await before.stop();
     apps.splice(apps.indexOf(before), 1);
 

@@ -8,7 +8,7 @@
  */
 import type { App, BlockAction, ButtonAction } from '@slack/bolt';
 import { renderSlackMessage } from '../../../render/slack-blocks.js';
-import { SLACK_ACTION_IDS } from '../../../render/slack-blocks.js';
+import { SLACK_ACTION_IDS, SLACK_CHOICE_ACTION } from '../../../render/slack-blocks.js';
 import { errorReply } from '../../../reply/build.js';
 import type { ReplyOk } from '../../../reply/reply.js';
 import { ask, eventKeys } from '../conversation.js';
@@ -86,6 +86,24 @@ export function registerActions(app: App, deps: ListenerDeps): void {
     const asked = await ask(deps, RESULT_ID.test(value) ? `why ${value}` : 'why', where);
     const place = body.channel?.id?.startsWith('D') ? 'dm' : 'derivation';
     await toResponseUrl(deps.fetch, body.response_url, cardFor(asked.reply, place), 'add');
+    await asked.settle();
+  });
+
+  // An answer to a question the bot asked ("P: p-type or phosphorus?"): run the chosen reading.
+  app.action<BlockAction<ButtonAction>>(SLACK_CHOICE_ACTION, async ({ ack, body, action }) => {
+    await ack();
+    const command = (action.value ?? '').trim();
+    if (command === '') return;
+    const where = {
+      teamId: body.team?.id,
+      userId: body.user.id,
+      channelId: body.channel?.id ?? 'unknown',
+      eventKey: eventKeys.action(body.team?.id, body.trigger_id),
+    };
+    if (!(await deps.ledger.claim(where.eventKey))) return;
+    const asked = await ask(deps, command, where);
+    const place = body.channel?.id?.startsWith('D') ? 'dm' : 'private';
+    await toResponseUrl(deps.fetch, body.response_url, cardFor(asked.reply, place), 'replace');
     await asked.settle();
   });
 
