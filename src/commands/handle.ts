@@ -311,12 +311,21 @@ function findVerb(all: Token[]): FoundVerb {
   const first = all[0];
   if (!first) return { error: emptyReply() };
   // A command word as typed, even one that looks like a number ("4pp").
-  const direct = findCommand(first.raw) ?? (first.kind === 'word' ? findCommand(first.text) : undefined);
+  // ("type=N rho 8.2 ohm-cm" starts with a type phrase, not with the type command.)
+  const startsWithTypePhrase = /^[pn]-type$/.test((mergeTypePhrasesQuiet(all.slice(0, 2))[0] as { text?: string }).text ?? '') && first.kind === 'word' && /^(?:type|typ|conductivity)$/i.test(first.text);
+  const direct = startsWithTypePhrase ? undefined : (findCommand(first.raw) ?? (first.kind === 'word' ? findCommand(first.text) : undefined));
   if (direct) return { spec: direct, verbText: first.raw.toLowerCase(), tokens: all.slice(1) };
   // A probe method first: "hot probe -1.4 mV", "hall -1.3e3 cm3/C" → type.
   if (first.kind === 'word' && Object.hasOwn(PROBE_METHOD_WORDS, first.text.toLowerCase())) {
     const tokens = all.filter((t, i) => !(i === 1 && t.kind === 'word' && /^probe$/i.test(t.text)));
     return { spec: findCommand('type')!, verbText: 'type', tokens };
+  }
+  // A type or dopant word first, the command word after it: "P type rho 8.2 ohm-cm".
+  if (isTradeWord(all)) {
+    const merged = mergeTypePhrasesQuiet(all);
+    const at = merged.findIndex((t, i) => i > 0 && t.kind === 'word' && findCommand(t.text) !== undefined);
+    const verb = merged[at];
+    if (verb?.kind === 'word') return { spec: findCommand(verb.text)!, verbText: verb.text.toLowerCase(), tokens: merged.filter((_t, i) => i !== at) };
   }
   // A reading with its unit implies the command ("8.2 ohm-cm p", "P-type 8.2 ohm-cm").
   const reading = all.find((t): t is Token & { kind: 'number' } => t.kind === 'number' && t.unitText !== '');

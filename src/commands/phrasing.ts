@@ -61,6 +61,11 @@ export function preparePhrasing(input: string): Phrasing {
   text = text.replace(/\s*[?!]+\s*$/, '').replace(/(?<=[A-Za-z°□)\]])\.+$/, '').trim();
   // "@ 25C", "@25 °C" → "at 25C"
   text = text.replace(/(^|\s)@\s*(?=[-+−]?\d)/g, '$1at ');
+  // "what type is hot probe …", "hall coefficient is …": a lone "is" carries nothing (free text after
+  // "because" is kept as typed).
+  const [head, ...reason] = text.split(/(?=\bbecause\b)/i);
+  text = [head!.replace(/(^|\s)is(?=\s|$)/gi, '$1').replace(/\s{2,}/g, ' ').trim(), ...reason].join(' ').trim();
+  if (text === '' && /^\s*\?+\s*$/.test(input)) text = 'help';
 
   // Thousands separators in groups of three, more than one group: 1,234,567.
   text = text.replace(/(?<![\d.,])(\d{1,3}(?:,\d{3}){2,})(?![\d,.])/g, (m) => {
@@ -69,7 +74,7 @@ export function preparePhrasing(input: string): Phrasing {
   });
   let question: NumberQuestion | undefined;
   text = text.replace(/(?<![\d.,])([-+]?\d+),(\d+)(?![\d,])(e[-+]?\d+)?/gi, (m, whole: string, frac: string, exp: string | undefined) => {
-    if (frac.length === 3 && !exp) {
+    if (frac.length === 3 && !exp && !/^[-+]?0/.test(whole)) {
       // "1,500": a decimal comma (1.5) or a thousands separator (1500)?
       const asDecimal = `${whole}.${frac}`;
       const asThousands = `${whole}${frac}`;

@@ -101,6 +101,11 @@ export const typeCommand = defineCommand<TypeRequest>({
     const m = args.word(METHODS);
     if (!m) throw new ArgError('missing_method', `Say which reading: hot, cold, hall, point or spv, e.g. ${EXAMPLE}`);
     const method = m.value;
+    // Words people add that say nothing more: "hot probe", "hall coefficient", "point contact".
+    args.flag(['probe']);
+    args.flag(['coefficient', 'coeff']);
+    args.flag(['contact']);
+    args.flag(['reading', 'reads', 'read']);
     const resistivity = args.keyed(['rho', 'resistivity'], 'resistivity');
     const dim = READING_DIMENSION[method];
     const noise = dim ? args.keyed(['noise', 'band'], dim) : undefined;

@@ -103,7 +103,7 @@ function normaliseUnitText(text: string): string {
     .replace(/[µμ]/g, 'u')
     .replace(/\bohms\b/gi, 'ohm')
     .replace(/ohms(?=[^a-z]|$)/gi, 'ohm')
-    .replace(/ohm/gi, 'ohm')
+    .replace(/ohm(.*)$/i, (_m, rest: string) => `ohm${rest.replace(/[A-Z]/g, (c) => (c === 'C' && /\/\s*C$/.test(rest) ? c : c.toLowerCase()))}`)
     .replace(/\bK(?=ohm)/g, 'k')
     .replace(/[⁰¹²³⁴⁵⁶⁷⁸⁹⁻⁺]+/g, (m) => '^' + [...m].map((c) => SUPERSCRIPTS[c]).join(''))
     .replace(/[−–]/g, '-')

@@ -113,6 +113,13 @@ describe('handle: property — no input string crashes the parser', () => {
     'rho', 'doping', 'sheet', 'type', 'ni', 'why', 'help', 'models', 'hot', 'cold', 'hall', 'point', 'spv',
     'p', 'n', 'B', 'P', 'As', 'Sb', 'boron', 'model', 'masetti', 'thick', 'spacing', 'diam', 'at', 'expect', 'noise',
     '8.2', '-1', '0', '1e400', 'NaN', '1.5x10^15', 'ohm-cm', 'Ω·cm', 'ohm/sq', 'mV', 'mA', 'um', 'K', 'C', 'cm-3', '=', '+', '−',
+    // prototype keys, which once crashed plain-object look-ups
+    'constructor', '__proto__', 'toString', 'hasOwnProperty', 'valueOf', 'prototype', '__defineGetter__',
+    // unicode look-alikes: ohm sign vs omega, micro sign vs mu, times vs x, minus vs hyphen, NBSP
+    'Ω·cm', 'Ω·cm', '8.2Ω', 'µm', 'μm', '1.5×10¹⁵', '1.5x10¹⁵', '−1.4mV', '8.2\u00a0ohm-cm', '8,2', '1,500', '1,5e15',
+    // chat markup and framing
+    '*rho*', '_p_', '`8.2 ohm-cm`', '~n~', '<@U012ABCDEF>', '<#C012ABC|fab>', '&gt;', '```', 'what is', '?', '@', 'P type', 'type=P', 'P<100>', 'N/Ph', 'p+',
+    'ohms', 'MOHM-CM', 'mils', 'because', 'record', 'LOT-A17', 'w3', 'site', 'confirm',
   );
   it('random token soups always give a Reply, never an internal error', async () => {
     await fc.assert(
@@ -122,6 +129,20 @@ describe('handle: property — no input string crashes the parser', () => {
         if (!r.ok) expect(r.error.code).not.toBe('internal');
       }),
       { numRuns: 400 },
+    );
+  });
+  it('a type word typed is never contradicted by the reply', async () => {
+    const typeWord = fc.constantFrom('P type', 'type P', 'type=P', 'P-type', 'ptype', 'p', 'N type', 'type=N', 'n-type', 'n');
+    const reading = fc.constantFrom('rho 8.2 ohm-cm', 'doping 1e15', 'sheet 45 ohm/sq thick 525um', '8.2 ohm-cm', 'rho 0.02 ohms');
+    await fc.assert(
+      fc.asyncProperty(reading, typeWord, fc.boolean(), async (r, t, before) => {
+        const text = before ? `${r} ${t}` : `${t} ${r}`;
+        const reply = await handle(text, testContext());
+        const typed = t.toLowerCase().replace('type', '').includes('p') ? 'p' : 'n';
+        expect(reply.ok, text).toBe(true);
+        if (reply.ok) expect(reply.values.find((v) => v.key === 'carrierType')?.value, text).toBe(typed);
+      }),
+      { numRuns: 200 },
     );
   });
   it('arbitrary unicode strings always give a Reply, never an internal error', async () => {
