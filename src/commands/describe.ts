@@ -5,7 +5,7 @@
 import type { Refusal } from '../physics/outcome.js';
 import type { ConversionModel, ConversionResult, Dopant, Parameter } from '../physics/types.js';
 import { formatNumber } from '../reply/format.js';
-import { assumptionText } from '../reply/messages.js';
+import { assumptionText, nameOf } from '../reply/messages.js';
 import { okReply } from '../reply/build.js';
 import type { ReplyModel, ReplyValue } from '../reply/reply.js';
 import { DOPANT_LABEL, MATERIAL_LABEL } from './words.js';
@@ -84,7 +84,7 @@ export function refusalMessage(r: Refusal): string {
     case 'nonpositive_input':
       return `The ${r.quantity.replace(/(OhmCm|PerCm3|K|OhmPerSq|Cm|V|A)$/, '').replace(/([A-Z])/g, ' $1').toLowerCase()} must be greater than zero (got ${formatNumber(r.input)}).`;
     case 'not_finite':
-      return `The ${r.quantity} is not a finite number.`;
+      return `The ${nameOf(r.quantity)} is not a finite number.`;
     case 'unknown_model':
       return `There is no model "${r.model}". Known models: ${r.known.join(', ')}.`;
     case 'model_dopant':
@@ -96,18 +96,18 @@ export function refusalMessage(r: Refusal): string {
     case 'geometry_invalid':
       return `The ${r.factor} correction does not exist for a ratio of ${formatNumber(r.ratio)} (it needs more than ${formatNumber(r.min)}); check the probe spacing and the wafer size.`;
     case 'missing_input':
-      return `The ${r.quantity} needs ${r.needs.join(' and ')}.`;
+      return `The ${nameOf(r.quantity)} needs ${r.needs.map(nameOf).join(' and ')}.`;
     case 'not_covered':
-      return `That needs ${r.quantity === 'ionizationEnergyEv' ? 'dopant ionization energies' : r.quantity}, which are covered for ${r.covered.map((m) => MATERIAL_LABEL[m]).join(' and ')} only, not ${MATERIAL_LABEL[r.material]}.`;
+      return `That needs ${r.quantity === 'ionizationEnergyEv' ? 'dopant ionization energies' : nameOf(r.quantity)}, which are covered for ${r.covered.map((m) => MATERIAL_LABEL[m]).join(' and ')} only, not ${MATERIAL_LABEL[r.material]}.`;
     case 'no_junction':
       return `A surface concentration of ${formatNumber(r.surfaceConcentrationPerCm3)} cm⁻³ is not above the background (${formatNumber(r.backgroundDensityPerCm3)} cm⁻³): there is no junction. Check Cs and the background.`;
     case 'dopant_pairing':
       return `A diffused layer of ${r.dopant} on a ${r.background} background is not a junction: the layer and the background must be of opposite types (n on p, or p on n).`;
     case 'no_solution':
-      return `The solver for the ${r.quantity} did not converge with the ${r.model} model (${r.status}); no value is given rather than a wrong one. Check the inputs.`;
+      return `The solver for the ${nameOf(r.quantity)} did not converge with the ${r.model} model; no value is given rather than a wrong one. Check the inputs.`;
     default: {
       const any = r as unknown as Record<string, unknown>;
-      return typeof any['message'] === 'string' ? any['message'] : `The request was refused (${String(any['code'])}).`;
+      return typeof any['message'] === 'string' ? any['message'] : 'The model cannot answer for these inputs; check the reading and its unit.';
     }
   }
 }

@@ -12,6 +12,8 @@
  *   CLEAR_CHANNELS   Slack channel ids where anyone may clear flags
  *   LOT_PATTERN      regular expression for lot ids (default ^LOT-[A-Z][0-9]{1,5}$)
  *   LOT_EXAMPLE      a lot id that fits LOT_PATTERN, shown in error messages
+ *   RECORD_CONFIRM_FACTOR  a reading more than this factor outside its product window is stored
+ *                    only when confirmed (default 3; 0 turns the question off)
  *
  * DATABASE_PATH (default ./data/shiftprobe.db) is in the base section.
  */
@@ -62,6 +64,8 @@ export interface LotsConfig {
   };
   readonly permissions: Permissions;
   readonly lotIds: LotIdRule;
+  /** A reading more than this factor outside the window asks for confirmation (0: never). */
+  readonly confirmFactor?: number;
 }
 
 export const LotsEnv = z
@@ -101,6 +105,12 @@ export const LotsEnv = z
       )
       .optional(),
     LOT_EXAMPLE: z.string().max(64).optional(),
+    RECORD_CONFIRM_FACTOR: z
+      .string()
+      .regex(/^\d+(?:\.\d+)?$/, { error: 'RECORD_CONFIRM_FACTOR must be a number such as 3 (or 0 to turn the question off)' })
+      .transform(Number)
+      .refine((n) => n === 0 || n > 1, { error: 'RECORD_CONFIRM_FACTOR must be above 1 (e.g. 3), or 0 to turn the question off' })
+      .optional(),
   })
   .superRefine((e, ctx) => {
     if (e.LOT_PATTERN !== undefined && e.LOT_EXAMPLE !== undefined && !new RegExp(e.LOT_PATTERN).test(e.LOT_EXAMPLE.toUpperCase())) {
@@ -121,6 +131,7 @@ export const LotsEnv = z
         clearUsers: e.CLEAR_USERS,
         clearChannels: e.CLEAR_CHANNELS,
       },
+      ...(e.RECORD_CONFIRM_FACTOR !== undefined ? { confirmFactor: e.RECORD_CONFIRM_FACTOR } : {}),
       lotIds:
         e.LOT_PATTERN === undefined
           ? lotIdRule(DEFAULT_LOT_PATTERN, DEFAULT_LOT_EXAMPLE)

@@ -64,6 +64,7 @@ export function startLots(db: Db, config: LotsConfig, options: LotsOptions = {})
     timeZone: config.digest.timeZone,
     permissions: config.permissions,
     lotIds: config.lotIds,
+    ...(config.confirmFactor !== undefined ? { confirmFactor: config.confirmFactor } : {}),
     newEventId: options.newEventId ?? (() => `local-${randomUUID()}`),
     digest: { channel: defaultChannel ?? 'console', at: config.digest.at },
   });

@@ -30,6 +30,8 @@ export interface LotServiceDeps {
   readonly newEventId: () => string;
   /** The summary's channel and local time, for the preview window. */
   readonly digest: { readonly channel: string; readonly at: string };
+  /** RECORD_CONFIRM_FACTOR: a reading this far outside its window is confirmed before storing. */
+  readonly confirmFactor?: number;
 }
 
 export type Result<T> = { readonly ok: true; readonly value: T } | { readonly ok: false; readonly error: LotError };
@@ -91,6 +93,11 @@ export class LotService {
 
   get catalog(): SpecCatalog {
     return this.deps.specs();
+  }
+
+  /** A reading more than this factor outside its product window asks for confirmation (0: never). */
+  get confirmFactor(): number {
+    return this.deps.confirmFactor ?? 3;
   }
 
   get lotIdRule(): LotIdRule {

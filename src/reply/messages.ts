@@ -29,8 +29,15 @@ function q(quantity: string, value: number): string {
   return w ? `${n}${w.unit ? ' ' + w.unit : ''}` : n;
 }
 
-function nameOf(quantity: string): string {
-  return QUANTITY_WORDS[quantity]?.name ?? quantity;
+/** A quantity's name for people: "resistivity" for resistivityOhmCm; never the identifier itself. */
+export function nameOf(quantity: string): string {
+  if (Object.hasOwn(QUANTITY_WORDS, quantity)) return QUANTITY_WORDS[quantity]!.name;
+  // An identifier without its wording yet: strip the unit and split the words.
+  return quantity
+    .replace(/(OhmCm|OhmPerSq|PerCm3|PerCm2|Cm2PerVs|PerK|Ev|Cm|K|V|A)$/, '')
+    .replace(/([A-Z])/g, ' $1')
+    .toLowerCase()
+    .trim();
 }
 
 export function problemMessage(p: Problem): string {
@@ -65,6 +72,8 @@ export function problemMessage(p: Problem): string {
       return `The ${p.parameter} (${formatNumber(p.value)} ${p.unit}) is from memory, not confirmed against a source (${p.source}); treat the result as an estimate.`;
     case 'intrinsic_regime':
       return `n_i (${formatNumber(p.intrinsicDensityPerCm3)} cm⁻³) is comparable with the net doping (${formatNumber(p.netDopingPerCm3)} cm⁻³): at this temperature the carriers are set by temperature, not by the dopants.`;
+    case 'method_not_covered':
+      return `${p.standard} does not cover the ${p.method} method on ${p.material}; treat the type as indicative and confirm it with another method.`;
     case 'quantity_not_covered':
       return `The ${nameOf(p.quantity)} is not computed for ${p.material}: only ${p.covered.join(', ')} is covered for it.`;
     case 'other':
@@ -74,12 +83,13 @@ export function problemMessage(p: Problem): string {
   }
 }
 
-/** Codes added by newer models before their wording is written here still reach people. */
+/**
+ * A problem without its wording (a test walks every code, so this is a safety net): a plain
+ * sentence, never the code or the object's fields.
+ */
 function describeUnknown(p: Record<string, unknown>): string {
   if (typeof p['message'] === 'string') return p['message'];
-  return Object.entries(p)
-    .map(([k, v]) => `${k}: ${typeof v === 'number' ? formatNumber(v) : String(v)}`)
-    .join(', ');
+  return 'The model reported a condition that has no wording yet; treat this value as an estimate and ask the process engineer.';
 }
 
 export function problemsToWarnings(problems: readonly Problem[]): ReplyWarning[] {
@@ -125,5 +135,12 @@ const ASSUMPTIONS: Record<string, string> = {
 };
 
 export function assumptionText(code: string): string {
-  return ASSUMPTIONS[code] ?? code;
+  if (Object.hasOwn(ASSUMPTIONS, code)) return ASSUMPTIONS[code]!;
+  // Sentences pass through; a code without wording becomes words, never the code.
+  return /\s/.test(code) ? code : `${code.replace(/_/g, ' ')}.`;
+}
+
+/** The assumption codes that have wording (a test checks every code the core uses is here). */
+export function hasAssumptionWording(code: string): boolean {
+  return Object.hasOwn(ASSUMPTIONS, code);
 }

@@ -14,11 +14,16 @@ import { defineCommand } from '../spec.js';
 import { POLARITY_WORDS, PROBE_METHOD_WORDS, type ProbeMethodWord } from '../words.js';
 import type { Dimension, Quantity } from '../units.js';
 import { actorOf, lotsOf, NOT_SET_UP, takeLotId, takeSite, takeWafer } from './parse.js';
+import { afterRecordNotes, implausibleQuestion, implausibleReading } from './record-context.js';
 import { recordReply } from './record-reply.js';
 import { lotErrorReply } from './wording.js';
 
 export const RecordCommandRequest = z.object({
   record: RecordRequest,
+  /** The person confirmed a reading far outside its window ("confirm"). */
+  confirmed: z.boolean(),
+  /** The command as typed, to offer it again with "confirm". */
+  commandText: z.string(),
   bareNumber: z.boolean(),
   asTyped: z.record(z.string(), z.string()),
 });
@@ -93,6 +98,8 @@ export const recordCommand = defineCommand<RecordCommandRequest>({
   schema: RecordCommandRequest,
   parse(args) {
     const asTyped: Record<string, string> = {};
+    const commandText = ['record', ...args.tokens.map((t) => t.verbatim)].join(' ');
+    const confirmed = args.flag(['confirm', 'confirmed', 'ok']);
     const lotId = takeLotId(args, EXAMPLE);
     const wafer = takeWafer(args);
     const site = takeSite(args);
@@ -171,17 +178,37 @@ export const recordCommand = defineCommand<RecordCommandRequest>({
       },
       bareNumber,
       asTyped,
+      confirmed,
+      commandText,
     };
   },
   async run(req, ctx) {
     const lots = lotsOf(ctx);
     if (!lots) return errorReply('lots_unavailable', NOT_SET_UP);
+    if (!req.confirmed) {
+      const far = await implausibleReading(lots, req.record, lots.confirmFactor);
+      if (far) {
+        return {
+          ok: false,
+          error: {
+            code: 'confirm_reading',
+            message: implausibleQuestion(far),
+            choices: [{ label: 'Store it as typed', answer: 'confirm', command: `${req.commandText} confirm` }],
+          },
+        };
+      }
+    }
     const where = `${req.record.lotId}${req.record.wafer !== undefined ? ` w${req.record.wafer}` : ''}${req.record.site !== undefined ? ` site ${req.record.site}` : ''}`;
     ctx.effects?.willStore(`your reading for ${where}`, `"lot ${req.record.lotId}" shows what is stored.`);
     const r = await lots.record(req.record, { actor: actorOf(ctx), ...(ctx.eventId ? { eventId: ctx.eventId } : {}) });
     if (!r.ok) return lotErrorReply(r.error, { usage: USAGE, example: EXAMPLE });
     const numbers = r.value.outcome.readings.map((x) => `#${x.id}`);
     ctx.effects?.didStore(numbers.length > 0 ? `your reading ${numbers.join(', ')} for ${where}` : `the record for ${where}`);
-    return recordReply(identity(ctx), r.value, { bareNumber: req.bareNumber, asTyped: req.asTyped });
+    const reply = recordReply(identity(ctx), r.value, { bareNumber: req.bareNumber, asTyped: req.asTyped });
+    const notes = r.value.duplicate ? [] : await afterRecordNotes(lots, r.value.outcome.readings, r.value.outcome.lotId, ctx.now());
+    const confirmedNote = req.confirmed ? ['Stored as typed after confirmation, although far outside the product window.'] : [];
+    return notes.length + confirmedNote.length === 0
+      ? reply
+      : { ...reply, warnings: [...reply.warnings, ...notes.map((message) => ({ code: 'record_context', message }))], assumptions: [...reply.assumptions, ...confirmedNote] };
   },
 });

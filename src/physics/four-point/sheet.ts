@@ -66,7 +66,7 @@ export function fourPointProbe(req: FourPointRequest): Outcome<FourPointResult> 
   const haveVI = req.voltageV !== undefined && req.currentA !== undefined;
   if (!haveVI && req.sheetResistanceOhmPerSq === undefined) {
     const quantity = req.voltageV !== undefined ? 'currentA' : req.currentA !== undefined ? 'voltageV' : 'sheetResistanceOhmPerSq';
-    return refuse({ code: 'missing_input', quantity, needs: ['voltageV and currentA', 'sheetResistanceOhmPerSq'] });
+    return refuse({ code: 'missing_input', quantity, needs: ['the voltage and current', 'or the sheet resistance'] });
   }
 
   const problems: Problem[] = [];
