@@ -5,6 +5,7 @@
  *   shiftprobe --serve              Slack when configured, otherwise the local console
  *   shiftprobe                      (no command) the local console
  */
+import { userInfo } from 'node:os';
 import { dirname, join } from 'node:path';
 import { contextFor, openServices, StartupError, type Services } from './app.js';
 import { digestReply } from './commands/lots/digest.js';
@@ -61,11 +62,28 @@ function open(config: Config, io: MainIo): Services | undefined {
   }
 }
 
+/**
+ * Who is at the console or the CLI: SHIFTPROBE_USER, or the login name, so lot records say who
+ * recorded (never a placeholder such as "console user").
+ */
+export function localOperator(env: Readonly<Record<string, string | undefined>>, surface: 'cli' | 'console'): { userId: string; displayName: string; channelId: string } {
+  let name = env['SHIFTPROBE_USER']?.trim();
+  if (!name) {
+    try {
+      name = userInfo().username;
+    } catch {
+      name = undefined;
+    }
+  }
+  name = (name || `unknown ${surface} user`).slice(0, 64);
+  return { userId: name, displayName: name, channelId: surface };
+}
+
 async function oneShot(text: string, json: boolean, config: Config, io: MainIo): Promise<number> {
   const services = open(config, io);
   if (!services) return 78;
   try {
-    const ctx = contextFor(services, 'cli', { userId: 'cli', channelId: 'cli' }, {});
+    const ctx = contextFor(services, 'cli', localOperator(io.env, 'cli'), {});
     const reply = await handle(text, ctx);
     io.stdout.write((json ? renderJson(reply) : renderText(reply, { width: io.stdout.columns ?? 88 })) + '\n');
     return reply.ok ? 0 : 2;
@@ -86,7 +104,7 @@ async function startConsole(config: Config, io: MainIo): Promise<number> {
     { channel: 'console', onError: (e) => io.stderr.write(`shiftprobe: the daily summary could not be printed: ${e instanceof Error ? e.message : String(e)}\n`) },
   );
   try {
-    const ctx = contextFor(services, 'console', { userId: 'console', displayName: 'console user', channelId: 'console' }, {});
+    const ctx = contextFor(services, 'console', localOperator(io.env, 'console'), {});
     await runConsole({
       input: io.stdin as unknown as import('node:stream').Readable,
       output: io.stdout as unknown as import('node:stream').Writable,

@@ -92,11 +92,13 @@ export const carriersCommand = defineCommand<CarriersRequest>({
     });
     if (!outcome.ok) return errorReply(outcome.refusal.code, refusalMessage(outcome.refusal), { usage: USAGE, example: EXAMPLE });
     const r = outcome.value;
-    const majority = r.carrierType === 'n' ? 'electron' : 'hole';
+    // n and p within 1 % of each other (exactly compensated, or intrinsic): no majority carrier.
+    const balanced = Math.abs(r.electronDensityPerCm3 - r.holeDensityPerCm3) <= 0.01 * (r.electronDensityPerCm3 + r.holeDensityPerCm3);
+    const majority = balanced ? 'none' : r.carrierType === 'n' ? 'electron' : 'hole';
     const values: ReplyValue[] = [
       { key: 'electronDensityPerCm3', value: r.electronDensityPerCm3, unit: 'cm⁻³', label: `Electron density n${majority === 'electron' ? ' (majority)' : ''}`, headline: majority === 'electron' },
       { key: 'holeDensityPerCm3', value: r.holeDensityPerCm3, unit: 'cm⁻³', label: `Hole density p${majority === 'hole' ? ' (majority)' : ''}`, headline: majority === 'hole' },
-      { key: 'carrierType', value: r.carrierType, unit: '', label: 'Conductivity type' },
+      { key: 'carrierType', value: balanced ? 'indeterminate' : r.carrierType, unit: '', label: balanced ? 'Conductivity type (n ≈ p, no majority carrier)' : 'Conductivity type' },
       { key: 'ionizedFraction', value: r.ionizedFraction, unit: '', label: `Ionized fraction of the ${r.netDonorDensityPerCm3 >= 0 ? 'donors' : 'acceptors'}`, sigFigs: 4 },
       { key: 'fermiLevelEv', value: r.fermiLevelEv, unit: 'eV', label: 'E_F − E_i (positive above the intrinsic level)', sigFigs: 3 },
       { key: 'fermiBelowConductionBandEv', value: r.fermiBelowConductionBandEv, unit: 'eV', label: 'E_c − E_F', sigFigs: 3 },

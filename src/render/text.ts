@@ -10,7 +10,11 @@ export interface TextOptions {
   readonly width?: number;
 }
 
+/** Carrier densities below one per cm³ carry no physical meaning as numbers: said in words. */
+const CARRIER_DENSITY_KEYS = new Set(['electronDensityPerCm3', 'holeDensityPerCm3', 'intrinsicDensityPerCm3']);
+
 export function valueText(v: ReplyValue): string {
+  if (CARRIER_DENSITY_KEYS.has(v.key) && typeof v.value === 'number' && v.value < 1) return `negligible (< 1 ${v.unit})`;
   const n = typeof v.value === 'number' ? formatNumber(v.value, { sigFigs: v.sigFigs ?? 3 }) : v.value;
   return v.unit ? `${n} ${v.unit}` : n;
 }

@@ -11,6 +11,7 @@ import type { SlackConfig } from '../../config.js';
 import type { SlackDeps } from './deps.js';
 import { installErrorHandler } from './errors.js';
 import { healthRoutes, healthServer, Readiness } from './health.js';
+import { displayNames } from './names.js';
 import { registerActions } from './listeners/actions.js';
 import { registerCommands } from './listeners/commands.js';
 import { registerEvents } from './listeners/events.js';
@@ -118,12 +119,16 @@ export function createSlackApp(options: SlackAppOptions): SlackRuntime {
           };
         });
 
-  const listenerDeps = { ...deps, slashCommand: slack.slashCommand };
+  // app.client has no token (tokens come from `authorize`), so posts outside events use this one.
+  const client = new webApi.WebClient(botToken, clientOptions);
+  const listenerDeps = {
+    ...deps,
+    slashCommand: slack.slashCommand,
+    displayName: deps.displayName ?? displayNames(client, Date.now, (m) => logger.debug(m)),
+  };
   registerCommands(app, listenerDeps);
   registerEvents(app, listenerDeps);
   registerActions(app, listenerDeps);
-  // app.client has no token (tokens come from `authorize`), so posts outside events use this one.
-  const client = new webApi.WebClient(botToken, clientOptions);
   installErrorHandler(app, deps, client);
 
   if (receiver instanceof SocketModeReceiver) {

@@ -40,7 +40,9 @@ export async function ask(deps: SlackDeps, text: string, where: Where): Promise<
   const key = conversationKey(where);
   const before = await deps.conversations.lastResult(key);
   const session: { lastResultId?: string } = before ? { lastResultId: before } : {};
-  const ctx = { ...contextFor(deps, 'slack', { userId: where.userId, channelId: where.channelId }, session, where.eventKey), log: deps.logger };
+  const displayName = deps.displayName ? await deps.displayName(where.userId).catch(() => undefined) : undefined;
+  const caller = { userId: where.userId, channelId: where.channelId, ...(displayName ? { displayName } : {}) };
+  const ctx = { ...contextFor(deps, 'slack', caller, session, where.eventKey), log: deps.logger };
   const reply = await deps.handle(text, ctx);
   if (mustKeep(reply)) await deps.results.save(reply);
   return {

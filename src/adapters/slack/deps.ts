@@ -33,6 +33,8 @@ export interface SlackDeps {
   readonly historyTimeoutMs: number;
   /** Lot records (record, lot, flags, clear, digest) when wired. */
   readonly lots?: LotsRuntime;
+  /** Display names for replies (users.info, cached); ids when absent. */
+  readonly displayName?: (userId: string) => Promise<string | undefined>;
 }
 
 export const DEFAULT_ACK_DEADLINE_MS = 2000;

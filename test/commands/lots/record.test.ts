@@ -71,11 +71,58 @@ describe('record: pass or which flag', () => {
 
   it('record with "corrects" supersedes the earlier reading and closes its flags', async () => {
     const { ctx } = setup();
-    const bad = ok(await handle('record LOT-A21 w5 rho 96 ohm-cm', ctx));
+    const bad = ok(await handle('record LOT-A21 w5 rho 96 ohm-cm confirm', ctx));
     const id = String(value(bad, 'readingId'));
     const fixed = ok(await handle(`record LOT-A21 w5 rho 9.6 ohm-cm corrects ${id}`, ctx));
     expect(value(fixed, 'verdict')).toBe('pass');
     expect(fixed.sections?.find((s) => s.heading === 'Flags')?.lines?.some((l) => l.startsWith('Closed:'))).toBe(true);
+  });
+
+  it('a reading more than 3× outside the window asks to confirm and stores nothing until then', async () => {
+    const { ctx, count } = setup();
+    const before = await count();
+    const asked = await handle('record LOT-A21 w5 rho 98 ohm-cm', ctx);
+    expect(asked.ok).toBe(false);
+    if (asked.ok) return;
+    expect(asked.error.code).toBe('confirm_reading');
+    expect(asked.error.message).toMatch(/more than 3× above the HX-200P window .* Nothing was stored/);
+    expect(asked.error.choices?.[0]?.command).toBe('record LOT-A21 w5 rho 98 ohm-cm confirm');
+    expect(await count()).toBe(before);
+    // Answering "confirm" runs the offered command: stored once, flagged, and said so.
+    const stored = ok(await handle('confirm', ctx));
+    expect(value(stored, 'verdict')).toBe('flagged');
+    expect(stored.assumptions.some((a) => /after confirmation/.test(a))).toBe(true);
+    expect(await count()).toBe(before + 1);
+    // 30 Ω·cm on a 8–12 Ω·cm product is inside ×3: flagged, not asked.
+    expect(ok(await handle('record LOT-A21 w6 rho 30 ohm-cm', ctx)).command).toBe('record');
+  });
+
+  it('a repeat of the same value at the same place within minutes is said, and stored as a second reading', async () => {
+    const { ctx, count } = setup();
+    const first = ok(await handle('record LOT-A21 w4 site 2 rho 9.8 ohm-cm', ctx));
+    const before = await count();
+    const second = ok(await handle('record LOT-A21 w4 site 2 rho 9.8 ohm-cm', ctx));
+    expect(await count()).toBe(before + 1);
+    const note = second.warnings.find((w) => w.code === 'record_context')?.message ?? '';
+    expect(note).toContain(`Same value as #${value(first, 'readingId')}`);
+    expect(note).toContain('stored as a second reading');
+  });
+
+  it('the wafer’s other open flags and disagreeing type readings are mentioned', async () => {
+    const { ctx } = setup();
+    ok(await handle('record LOT-A21 w7 rho 12.9 ohm-cm', ctx));
+    ok(await handle('record LOT-A21 w7 type hot +1.4mV', ctx));
+    const r = ok(await handle('record LOT-A21 w7 type hot -1.4mV', ctx));
+    const notes = r.warnings.filter((w) => w.code === 'record_context').map((w) => w.message).join(' ');
+    expect(notes).toMatch(/W7 already has open flags?: .*F\d+ outside window/);
+    expect(notes).toMatch(/W7 has type readings that disagree: #\d+ n-type .*#\d+ p-type/);
+  });
+
+  it('RECORD_CONFIRM_FACTOR changes the factor; 0 turns the question off', async () => {
+    const rt = demoLots(() => FIXED_NOW);
+    const off = Object.create(rt.service, { confirmFactor: { get: () => 0 } });
+    const r = await handle('record LOT-A21 w5 rho 98 ohm-cm', testContext({ lots: off }));
+    expect(r.ok).toBe(true);
   });
 
   it('a product-only record names the lot’s product', async () => {
