@@ -71,6 +71,9 @@ export function buildDigest(input: DigestInput): Digest {
   for (const f of input.raisedInWindow) {
     if (f.raisedAt > endIso || seen.has(f.id)) continue;
     seen.add(f.id);
+    // Raised by a reading that was then corrected (closed by the correction, not by a person):
+    // the flag was the typo's, not the lot's, and the lot does not count as flagged for it.
+    if (f.clearance?.kind === 'correction' && f.clearance.at <= endIso) continue;
     // A clearance after the window's end does not count yet at send time.
     const open = f.clearance === undefined || f.clearance.at > endIso;
     entries.push({ flag: f, isNew: true, open });

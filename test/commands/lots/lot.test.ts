@@ -125,4 +125,21 @@ describe('digest', () => {
     expect(r.sections?.some((s) => s.lines?.some((l) => l.startsWith('No flagged lots.')))).toBe(true);
     expect(r.cautions).toContain(CONFIRM_PROCEDURE);
   });
+
+  it('a flag closed by correcting its reading does not count the lot as flagged', async () => {
+    const started = startLots(openDatabase(':memory:', []), {
+      specFile: DEMO_SPEC_FILE,
+      demoSpecs: true,
+      digest: { at: '07:00', timeZone: 'Europe/London' },
+      permissions: NO_CHAT_WRITERS,
+      lotIds: lotIdRule(),
+    }, { now: () => FIXED_NOW, demoHistory: false });
+    if (!started.ok) throw new Error(started.message);
+    const ctx = testContext({ lots: started.lots.service });
+    const typo = ok(await handle('record LOT-A21 w1 rho 14.7 ohm-cm product HX-200P', ctx));
+    expect(ok(await handle('digest', ctx)).title).toMatch(/1 flagged lot/);
+    const id = typo.values.find((v) => v.key === 'readingId')!.value;
+    ok(await handle(`record LOT-A21 w1 rho 9.7 ohm-cm corrects ${id}`, ctx));
+    expect(ok(await handle('digest', ctx)).title).toBe('Summary preview · no flagged lots');
+  });
 });

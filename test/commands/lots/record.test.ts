@@ -115,7 +115,9 @@ describe('record: pass or which flag', () => {
     const r = ok(await handle('record LOT-A21 w7 type hot -1.4mV', ctx));
     const notes = r.warnings.filter((w) => w.code === 'record_context').map((w) => w.message).join(' ');
     expect(notes).toMatch(/W7 already has open flags?: .*F\d+ outside window/);
-    expect(notes).toMatch(/W7 has type readings that disagree: #\d+ n-type .*#\d+ p-type/);
+    expect(notes).toMatch(/W7 has type readings that disagree: #\d+ [np]-type .*#\d+ [np]-type/);
+    expect(notes).toContain('n-type (hot +1.4mV)');
+    expect(notes).toContain('p-type (hot -1.4mV)');
   });
 
   it('RECORD_CONFIRM_FACTOR changes the factor; 0 turns the question off', async () => {
