@@ -95,6 +95,19 @@ describe('clear', () => {
   });
 });
 
+/** A lot store with the demo specs and no history. */
+function emptyLotsContext() {
+  const started = startLots(openDatabase(':memory:', []), {
+    specFile: DEMO_SPEC_FILE,
+    demoSpecs: true,
+    digest: { at: '07:00', timeZone: 'Europe/London' },
+    permissions: NO_CHAT_WRITERS,
+    lotIds: lotIdRule(),
+  }, { now: () => FIXED_NOW, demoHistory: false });
+  if (!started.ok) throw new Error(started.message);
+  return testContext({ lots: started.lots.service });
+}
+
 describe('digest', () => {
   it('the preview groups flagged lots by product with counts and posts nothing', async () => {
     const ctx = testContext();
@@ -110,15 +123,7 @@ describe('digest', () => {
   });
 
   it('a clean day gives the short "no flagged lots" line', async () => {
-    const started = startLots(openDatabase(':memory:', []), {
-      specFile: DEMO_SPEC_FILE,
-      demoSpecs: true,
-      digest: { at: '07:00', timeZone: 'Europe/London' },
-      permissions: NO_CHAT_WRITERS,
-      lotIds: lotIdRule(),
-    }, { now: () => FIXED_NOW, demoHistory: false });
-    if (!started.ok) throw new Error(started.message);
-    const ctx = testContext({ lots: started.lots.service });
+    const ctx = emptyLotsContext();
     ok(await handle('record LOT-A21 w1 rho 9.7 ohm-cm product HX-200P', ctx));
     const r = ok(await handle('digest', ctx));
     expect(r.title).toBe('Summary preview · no flagged lots');
@@ -127,15 +132,7 @@ describe('digest', () => {
   });
 
   it('a flag closed by correcting its reading does not count the lot as flagged', async () => {
-    const started = startLots(openDatabase(':memory:', []), {
-      specFile: DEMO_SPEC_FILE,
-      demoSpecs: true,
-      digest: { at: '07:00', timeZone: 'Europe/London' },
-      permissions: NO_CHAT_WRITERS,
-      lotIds: lotIdRule(),
-    }, { now: () => FIXED_NOW, demoHistory: false });
-    if (!started.ok) throw new Error(started.message);
-    const ctx = testContext({ lots: started.lots.service });
+    const ctx = emptyLotsContext();
     const typo = ok(await handle('record LOT-A21 w1 rho 14.7 ohm-cm product HX-200P', ctx));
     expect(ok(await handle('digest', ctx)).title).toMatch(/1 flagged lot/);
     const id = typo.values.find((v) => v.key === 'readingId')!.value;

@@ -36,6 +36,16 @@ function note(message: string): ReturnType<typeof renderSlackMessage> {
   return renderSlackMessage(errorReply('slack', message), { helpHint: false });
 }
 
+/** Who pressed a button, where, under the button press's own exactly-once key. */
+function actionWhere(body: BlockAction<ButtonAction>) {
+  return {
+    teamId: body.team?.id,
+    userId: body.user.id,
+    channelId: body.channel?.id ?? 'unknown',
+    eventKey: eventKeys.action(body.team?.id, body.trigger_id),
+  };
+}
+
 export function registerActions(app: App, deps: ListenerDeps): void {
   const load = async (value: string | undefined): Promise<ReplyOk | undefined> =>
     value && RESULT_ID.test(value) ? deps.results.get(value) : undefined;
@@ -76,12 +86,7 @@ export function registerActions(app: App, deps: ListenerDeps): void {
   app.action<BlockAction<ButtonAction>>(SLACK_ACTION_IDS.why, async ({ ack, body, action }) => {
     await ack();
     const value = action.value ?? '';
-    const where = {
-      teamId: body.team?.id,
-      userId: body.user.id,
-      channelId: body.channel?.id ?? 'unknown',
-      eventKey: eventKeys.action(body.team?.id, body.trigger_id),
-    };
+    const where = actionWhere(body);
     if (!(await deps.ledger.claim(where.eventKey))) return;
     const asked = await ask(deps, RESULT_ID.test(value) ? `why ${value}` : 'why', where);
     const place = body.channel?.id?.startsWith('D') ? 'dm' : 'derivation';
@@ -94,12 +99,7 @@ export function registerActions(app: App, deps: ListenerDeps): void {
     await ack();
     const command = (action.value ?? '').trim();
     if (command === '') return;
-    const where = {
-      teamId: body.team?.id,
-      userId: body.user.id,
-      channelId: body.channel?.id ?? 'unknown',
-      eventKey: eventKeys.action(body.team?.id, body.trigger_id),
-    };
+    const where = actionWhere(body);
     if (!(await deps.ledger.claim(where.eventKey))) return;
     const asked = await ask(deps, command, where);
     const place = body.channel?.id?.startsWith('D') ? 'dm' : 'private';
