@@ -120,22 +120,18 @@ export class Args {
 
   /** The first unused word that `map` knows, mapped. */
   word<T>(map: Readonly<Record<string, T>>): { value: T; raw: string } | undefined {
-    for (let i = 0; i < this.tokens.length; i++) {
-      const t = this.tokens[i]!;
-      if (this.used[i] || t.kind !== 'word') continue;
-      const hit = lookup(map, t.text);
-      if (hit !== undefined) {
-        this.used[i] = true;
-        return { value: hit, raw: t.raw };
-      }
-    }
-    return undefined;
+    const [hit] = this.takeWords(map, 1);
+    return hit ? { value: hit.value, raw: hit.raw } : undefined;
   }
 
   /** Every unused word that `map` knows, mapped and consumed, in the order typed. */
   allWords<T>(map: Readonly<Record<string, T>>): { value: T; raw: string; text: string; token: Token }[] {
+    return this.takeWords(map, Infinity);
+  }
+
+  private takeWords<T>(map: Readonly<Record<string, T>>, most: number): { value: T; raw: string; text: string; token: Token }[] {
     const out: { value: T; raw: string; text: string; token: Token }[] = [];
-    for (let i = 0; i < this.tokens.length; i++) {
+    for (let i = 0; i < this.tokens.length && out.length < most; i++) {
       const t = this.tokens[i]!;
       if (this.used[i] || t.kind !== 'word') continue;
       const hit = lookup(map, t.text);
