@@ -2,7 +2,8 @@
  * Everything `lot <id>` shows, as data: the product, readings latest first, per-wafer values,
  * spread, spec margins against the current spec, open flags and who recorded what. Pure.
  */
-import { windowCheck, type Check } from './evaluation.js';
+import { windowCheck } from './checks/window.js';
+import type { Check } from './evaluation-types.js';
 import { isOpen, type StoredFlag } from './flags.js';
 import { currentReadings, type StoredReading } from './readings.js';
 import type { LotHistory, LotRecord } from './repository.js';

@@ -3,7 +3,8 @@
  * to write: the checked readings, the flags to raise (one open flag per lot, code and scope),
  * and the flags the system closes. Pure.
  */
-import { evaluateRecord, type LotError } from './evaluation.js';
+import type { LotError } from './errors.js';
+import { evaluateRecord } from './evaluation.js';
 import { isOpen, type FlagCode, type FlagFinding, type StoredFlag } from './flags.js';
 import type { LotPhysics } from './physics.js';
 import type { RecordRequest } from './readings.js';

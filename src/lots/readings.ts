@@ -4,7 +4,7 @@
  */
 import { z } from 'zod';
 import { SITE_MAX, SITE_MIN, WAFER_MAX, WAFER_MIN } from './ids.js';
-import type { ReadingDraft } from './evaluation.js';
+import type { ReadingDraft } from './evaluation-types.js';
 
 /** Sanity bounds: a value outside them is a typing or unit slip, not a silicon reading. */
 export const LIMITS = {
@@ -96,7 +96,7 @@ export const RecordRequest = z
   });
 export type RecordRequest = z.infer<typeof RecordRequest>;
 
-export type Quantity = 'resistivity' | 'sheet' | 'type';
+export type { Quantity, Verdict } from './evaluation-types.js';
 
 /** Who caused a write, and from where. */
 export interface Actor {
@@ -106,8 +106,10 @@ export interface Actor {
   readonly channelId: string;
 }
 
-/** One stored reading. Never updated: a correction is a new reading that `supersedes` this one. */
-/** A reading as kept: the draft that was checked, plus who, when, where from and what it corrects. */
+/**
+ * A reading as kept: the draft that was checked, plus who, when, where from and what it corrects.
+ * Never updated: a correction is a new reading that `supersedes` this one.
+ */
 export interface StoredReading extends ReadingDraft {
   readonly id: number;
   readonly lotId: string;
@@ -118,8 +120,6 @@ export interface StoredReading extends ReadingDraft {
   readonly eventId: string;
   readonly recordedAt: string;
 }
-
-export type Verdict = 'pass' | 'flagged' | 'no_verdict';
 
 /** The readings that count: not corrected by a later one. */
 export function currentReadings(readings: readonly StoredReading[]): StoredReading[] {

@@ -10,7 +10,8 @@
  * writes nothing.
  */
 import type { FlagFinding, StoredFlag } from './flags.js';
-import type { LotError, ReadingDraft } from './evaluation.js';
+import type { LotError } from './errors.js';
+import type { ReadingDraft } from './evaluation-types.js';
 import type { Actor, StoredReading } from './readings.js';
 
 export interface LotRecord {

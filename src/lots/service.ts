@@ -5,7 +5,7 @@
  */
 import { z } from 'zod';
 import { buildDigest, type Digest } from './digest.js';
-import type { LotError } from './evaluation.js';
+import type { LotError } from './errors.js';
 import { FLAG_CODES } from './flags.js';
 import { normalizeLotId, type LotIdRule } from './ids.js';
 import { lotView, type LotView } from './lot-view.js';

@@ -1,7 +1,7 @@
 /** The window check and its margins: definitions (docs/lots.md), checked by hand and by property. */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { windowCheck } from '../../src/lots/evaluation.js';
+import { windowCheck } from '../../src/lots/checks/window.js';
 
 describe('window check', () => {
   it('margins worked by hand on the 8–12 Ω·cm window', () => {

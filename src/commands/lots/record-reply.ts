@@ -1,6 +1,6 @@
 /** The reply to `record`: pass or which flag, the checks, the flags raised or closed. */
 import { basename } from 'node:path';
-import type { Check, ReadingEvaluation } from '../../lots/evaluation.js';
+import type { Check, ReadingEvaluation } from '../../lots/evaluation-types.js';
 import { flagHandle } from '../../lots/flags.js';
 import { placeLabel } from '../../lots/ids.js';
 import type { StoredReading } from '../../lots/readings.js';

@@ -2,7 +2,8 @@
  * Wording for lot records: flags, checks, notes, errors and the lot cautions. The lot domain
  * (src/lots) returns data; this is the one place it becomes sentences, for every surface.
  */
-import type { Check, LotError, LotNote } from '../../lots/evaluation.js';
+import type { LotError } from '../../lots/errors.js';
+import type { Check, LotNote } from '../../lots/evaluation-types.js';
 import { FLAG_WORDS, flagHandle, type FlagDetail, type StoredFlag } from '../../lots/flags.js';
 import { placeLabel } from '../../lots/ids.js';
 import type { StoredReading } from '../../lots/readings.js';

@@ -1,6 +1,6 @@
 /** Row ↔ domain mapping for the SQLite lot store. */
 import type { FlagCode, FlagDetail, StoredFlag } from '../flags.js';
-import type { ReadingEvaluation } from '../evaluation.js';
+import type { ReadingEvaluation } from '../evaluation-types.js';
 import type { Quantity, StoredReading, Verdict } from '../readings.js';
 import type { DigestRun, DigestStatus } from '../repository.js';
 
