@@ -17,7 +17,8 @@ import { mkdtempSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { handle } from '../src/commands/handle.js';
-import { MemoryResultStore, type HandleContext } from '../src/commands/context.js';
+import { MemoryResultStore } from '../src/adapters/storage/memory.js';
+import { type HandleContext } from '../src/commands/context.js';
 import { digestReply } from '../src/commands/lots/digest.js';
 import { DEMO_SPEC_FILE } from '../src/lots/config.js';
 import { corePhysics } from '../src/lots/core-physics.js';
@@ -27,7 +28,7 @@ import { planRecord } from '../src/lots/plan.js';
 import { RecordRequest, type Actor } from '../src/lots/readings.js';
 import { LotService } from '../src/lots/service.js';
 import { loadSpecFile } from '../src/lots/spec/load.js';
-import { SqliteLotRepository } from '../src/lots/sqlite/repository.js';
+import { SqliteLotRepository } from '../src/adapters/storage/sqlite/lots-repository.js';
 import { renderText } from '../src/render/text.js';
 
 const load = loadSpecFile(DEMO_SPEC_FILE, { demo: true });

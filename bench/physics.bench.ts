@@ -10,7 +10,8 @@
  * Targets from issue 2: the public F723 path at least half the speed of the minimal loop;
  * a root-finding inversion under 2 µs.
  */
-import { MemoryResultStore, type HandleContext, type ResultStore } from '../src/commands/context.js';
+import { MemoryResultStore } from '../src/adapters/storage/memory.js';
+import { type HandleContext, type ResultStore } from '../src/commands/context.js';
 import { handle } from '../src/commands/handle.js';
 import { intrinsicDensity } from '../src/physics/intrinsic/registry.js';
 import { masetti1983 } from '../src/physics/mobility/masetti-1983.js';

@@ -7,7 +7,7 @@ import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { Writable } from 'node:stream';
 import { App, HTTPReceiver, LogLevel } from '@slack/bolt';
-import { startSlack } from '../src/adapters/slack/index.js';
+import { serve } from '../src/main.js';
 import { loadConfig } from '../src/config.js';
 
 const [mode, apiUrl, databasePath] = process.argv.slice(2);
@@ -39,7 +39,7 @@ if (mode === 'bare') {
     DATABASE_PATH: databasePath,
   });
   if (!loaded.ok) throw new Error(loaded.problems.map((p) => p.message).join('; '));
-  const code = await startSlack(loaded.config, {
+  const code = await serve(loaded.config, {
     io: { stderr: new Writable({ write: (_c, _e, done) => done() }) },
     stopSignal,
     onReady: ({ port }) => send({ port }),

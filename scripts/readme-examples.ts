@@ -5,7 +5,7 @@
  *   npm run readme:examples
  */
 import { readFileSync, writeFileSync } from 'node:fs';
-import { MemoryResultStore } from '../src/commands/context.js';
+import { MemoryResultStore } from '../src/adapters/storage/memory.js';
 import { handle } from '../src/commands/handle.js';
 import { renderJson } from '../src/render/json.js';
 import { renderText } from '../src/render/text.js';

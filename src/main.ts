@@ -1,17 +1,26 @@
 /**
- * Entry point behind `npx shiftprobe` and `npm start`:
+ * The composition root, behind `npx shiftprobe` and `npm start`:
  *   shiftprobe "<command>"          one reply as text (exit 2 on bad input)
  *   shiftprobe --json "<command>"   one reply as a JSON object (the contract in README.md)
- *   shiftprobe --serve              Slack when configured, otherwise the local console
- *   shiftprobe                      (no command) the local console
+ *   shiftprobe --serve              every configured surface (Slack…), otherwise the local console
+ *   shiftprobe                      (no command) the same
+ *
+ * The only module that knows every part: it reads the settings, opens the storage backend,
+ * builds the application layer, starts any number of surfaces in one process and the one daily
+ * summary job, and stops them in order. Exit 78 (EX_CONFIG) for anything the operator must fix
+ * in the settings, with a message naming the setting and no stack trace.
  */
 import { userInfo } from 'node:os';
 import { dirname, join } from 'node:path';
-import { contextFor, openServices, StartupError, type Services } from './app.js';
-import { digestReply } from './commands/lots/digest.js';
-import { runConsole } from './adapters/console/console.js';
-import { handle } from './commands/handle.js';
-import { describeConfigProblems, loadConfig, readEnvironment, surfaceOf, type Config } from './config.js';
+import type { Logger } from '@slack/bolt';
+import { Application, StartupError, type ApplicationOptions, type Handler } from './app/application.js';
+import type { DailySummaryJob } from './app/daily-summary.js';
+import { StorageError, type StorageBackend } from './app/ports.js';
+import { SurfaceConfigError, type Surface } from './app/surface.js';
+import { consoleSummaryNotifier, runConsole } from './adapters/console/console.js';
+import type { SlackDeps, SlackRuntime } from './adapters/slack/index.js';
+import { openBackend } from './adapters/storage/open.js';
+import { describeConfigProblems, loadConfig, readEnvironment, type Config } from './config.js';
 import { renderJson } from './render/json.js';
 import { renderText } from './render/text.js';
 
@@ -24,12 +33,14 @@ export interface MainIo {
 
 const USAGE = [
   'usage: shiftprobe [--json] "<command>"   one answer, e.g. shiftprobe "rho 8.2 ohm-cm p"',
-  '       shiftprobe                       the local console (or Slack, when configured)',
+  '       shiftprobe                       the local console (or the chat surfaces, when configured)',
 ].join('\n');
+
+const EX_CONFIG = 78;
 
 export async function main(argv: readonly string[], io: MainIo = process as unknown as MainIo): Promise<number> {
   const json = argv.includes('--json');
-  const serve = argv.includes('--serve');
+  const serveFlag = argv.includes('--serve');
   if (argv.includes('--help') || argv.includes('-h')) {
     io.stdout.write(USAGE + '\n');
     return 0;
@@ -43,22 +54,39 @@ export async function main(argv: readonly string[], io: MainIo = process as unkn
   const loaded = loadConfig(readEnvironment({ env: io.env }));
   if (!loaded.ok) {
     io.stderr.write(describeConfigProblems(loaded.problems) + '\n');
-    return 78; // configuration error (EX_CONFIG)
+    return EX_CONFIG;
   }
   const config = loaded.config;
-  if (text.trim() !== '' && !serve) return oneShot(text, json, config, io);
-  if (surfaceOf(config) === 'slack') return startSlackSurface(config, io);
+  if (text.trim() !== '' && !serveFlag) return oneShot(text, json, config, io);
+  if (hasChatSurface(config)) return serve(config, { io });
   return startConsole(config, io);
 }
 
-/** Open the database and the lot records; a bad spec file stops start-up with its problems. */
-function open(config: Config, io: MainIo): Services | undefined {
+/** Whether any chat surface is configured (otherwise the local console runs). */
+export function hasChatSurface(config: Config): boolean {
+  return config.slack !== undefined;
+}
+
+/**
+ * The backend and the application; a problem the operator must fix is printed (naming the
+ * setting) and undefined returned.
+ */
+export async function openApplication(
+  config: Config,
+  stderr: NodeJS.WritableStream,
+  options: ApplicationOptions & { backend?: StorageBackend } = {},
+): Promise<Application | undefined> {
+  let backend: StorageBackend | undefined;
   try {
-    return openServices(config.base.databasePath, { lots: config.lots });
+    backend = options.backend ?? (await openBackend(config.storage, options.now ? { now: options.now } : {}));
+    return await Application.open(backend, { lots: config.lots, ...options });
   } catch (e) {
-    if (!(e instanceof StartupError)) throw e;
-    io.stderr.write(`shiftprobe cannot start: ${e.message}\n`);
-    return undefined;
+    if (!options.backend) await backend?.close().catch(() => undefined);
+    if (e instanceof StorageError || e instanceof StartupError) {
+      stderr.write(`shiftprobe cannot start: ${e.message}\n`);
+      return undefined;
+    }
+    throw e;
   }
 }
 
@@ -80,46 +108,139 @@ export function localOperator(env: Readonly<Record<string, string | undefined>>,
 }
 
 async function oneShot(text: string, json: boolean, config: Config, io: MainIo): Promise<number> {
-  const services = open(config, io);
-  if (!services) return 78;
+  const app = await openApplication(config, io.stderr);
+  if (!app) return EX_CONFIG;
   try {
-    const ctx = contextFor(services, 'cli', localOperator(io.env, 'cli'), {});
-    const reply = await handle(text, ctx);
-    io.stdout.write((json ? renderJson(reply) : renderText(reply, { width: io.stdout.columns ?? 88 })) + '\n');
-    return reply.ok ? 0 : 2;
+    const asked = await app.ask({ text, surface: 'cli', caller: localOperator(io.env, 'cli') });
+    if (asked.duplicate) return 0; // no event key on the CLI: cannot happen
+    io.stdout.write((json ? renderJson(asked.reply) : renderText(asked.reply, { width: io.stdout.columns ?? 88 })) + '\n');
+    return asked.reply.ok ? 0 : 2;
   } finally {
-    services.close();
+    await app.close();
   }
 }
 
 async function startConsole(config: Config, io: MainIo): Promise<number> {
-  const services = open(config, io);
-  if (!services) return 78;
+  const app = await openApplication(config, io.stderr);
+  if (!app) return EX_CONFIG;
   // The daily summary of flagged lots prints in the console at DIGEST_AT.
-  const digest = await services.lots?.startDigest(
-    async (d) => {
-      const reply = digestReply({ id: services.newId(), createdAt: services.now().toISOString() }, d, { demo: services.lots?.catalog.demo ?? false });
-      io.stdout.write(`\n${renderText(reply, { width: io.stdout.columns ?? 88 })}\n\n`);
-    },
-    { channel: 'console', onError: (e) => io.stderr.write(`shiftprobe: the daily summary could not be printed: ${e instanceof Error ? e.message : String(e)}\n`) },
-  );
+  const daily = app.dailySummary([consoleSummaryNotifier(io.stdout as unknown as import('node:stream').Writable)], {
+    onError: (e, context) => io.stderr.write(`shiftprobe: ${context}: the summary could not be printed (${e instanceof Error ? e.message : String(e)})\n`),
+  });
+  await daily?.start();
   try {
-    const ctx = contextFor(services, 'console', localOperator(io.env, 'console'), {});
     await runConsole({
       input: io.stdin as unknown as import('node:stream').Readable,
       output: io.stdout as unknown as import('node:stream').Writable,
-      context: ctx,
-      historyPath: join(dirname(config.base.databasePath), 'console-history'),
+      ask: (q) => app.ask(q),
+      caller: localOperator(io.env, 'console'),
+      historyPath: config.storage.kind === 'sqlite' ? join(dirname(config.storage.path), 'console-history') : undefined,
     });
     return 0;
   } finally {
-    digest?.stop();
-    services.close();
+    daily?.stop();
+    await app.close();
   }
 }
 
-async function startSlackSurface(config: Config, io: MainIo): Promise<number> {
-  // The Slack adapter is loaded only when configured, so the console and the CLI never load Bolt.
-  const { startSlack } = await import('./adapters/slack/index.js');
-  return startSlack(config, { io });
+export interface ServeDeps {
+  readonly io: { readonly stderr: NodeJS.WritableStream };
+  /** An application built already (tests: fixed clock and ids); opened from the settings when absent. */
+  readonly app?: Application;
+  /** Replaces the command handler (tests). */
+  readonly handle?: Handler;
+  readonly logger?: Logger;
+  /** Resolves when the process should stop; SIGINT or SIGTERM when absent. */
+  readonly stopSignal?: Promise<unknown>;
+  /** Replaces parts of the Slack adapter's dependencies (tests: deadlines, fetch). */
+  readonly slackOverrides?: Partial<SlackDeps>;
+  /** Told once every surface is up (tests, the benchmarks). */
+  readonly onReady?: (info: { readonly port: number; readonly app: Application; readonly slack?: SlackRuntime; readonly daily?: DailySummaryJob }) => void;
+}
+
+function untilSignal(): Promise<string> {
+  return new Promise((resolve) => {
+    const done = (signal: string): void => {
+      process.off('SIGINT', onInt);
+      process.off('SIGTERM', onTerm);
+      resolve(signal);
+    };
+    const onInt = (): void => done('SIGINT');
+    const onTerm = (): void => done('SIGTERM');
+    process.on('SIGINT', onInt);
+    process.on('SIGTERM', onTerm);
+  });
+}
+
+function codeOf(e: unknown): string | undefined {
+  const c = (e as { code?: unknown; original?: { code?: unknown } } | undefined)?.code ?? (e as { original?: { code?: unknown } } | undefined)?.original?.code;
+  return typeof c === 'string' ? c : undefined;
+}
+
+/**
+ * Every configured surface in one process, on one backend, with one daily job; runs until
+ * SIGINT/SIGTERM (or `stopSignal`). 0 after a clean stop, 78 when the settings are wrong, 1 when
+ * start-up failed otherwise.
+ */
+export async function serve(config: Config, deps: ServeDeps): Promise<number> {
+  const { createLogger } = await import('./adapters/slack/logger.js');
+  const secrets = [config.slack?.botToken.reveal(), config.slack?.transport === 'socket' ? config.slack.appToken.reveal() : config.slack?.signingSecret.reveal(), config.storage.kind === 'postgres' ? config.storage.url.reveal() : undefined].filter(
+    (s): s is string => s !== undefined && s !== '',
+  );
+  const logger = deps.logger ?? createLogger({ sink: (line) => deps.io.stderr.write(line + '\n'), level: config.base.logLevel, secrets });
+  const app = deps.app ?? (await openApplication(config, deps.io.stderr, deps.handle ? { handle: deps.handle } : {}));
+  if (!app) return EX_CONFIG;
+  const surfaces: Surface[] = [];
+  let slack: SlackRuntime | undefined;
+  if (config.slack) {
+    // Loaded only when configured, so the console and the CLI never load Bolt.
+    const { slackSurface } = await import('./adapters/slack/index.js');
+    const s = slackSurface(app, {
+      slack: config.slack,
+      port: config.base.port,
+      host: config.base.host,
+      logger,
+      digestChannel: config.lots.digest.channel,
+      ...(deps.slackOverrides ? { overrides: deps.slackOverrides } : {}),
+    });
+    slack = s.runtime;
+    surfaces.push(s);
+  }
+  const started: Surface[] = [];
+  let daily: DailySummaryJob | undefined;
+  try {
+    let port = 0;
+    for (const s of surfaces) {
+      const up = await s.start();
+      started.push(s);
+      if (up.port !== undefined && port === 0) port = up.port;
+      logger.info(`shiftprobe is answering on ${up.description}`);
+    }
+    const notifiers = started.map((s) => s.summaryNotifier()).filter((n) => n !== undefined);
+    daily = app.dailySummary(notifiers, { onError: (e, context) => logger.error(`shiftprobe: ${context} could not be posted:`, e) });
+    await daily?.start();
+    deps.onReady?.({ port, app, ...(slack ? { slack } : {}), ...(daily ? { daily } : {}) });
+    await (deps.stopSignal ?? untilSignal());
+    return 0;
+  } catch (error) {
+    if (error instanceof SurfaceConfigError) {
+      deps.io.stderr.write(`shiftprobe cannot start: ${error.message}\n`);
+      return EX_CONFIG;
+    }
+    if (codeOf(error) === 'EADDRINUSE' || codeOf(error) === 'EACCES') {
+      const where = `${config.base.host ?? 'all addresses'} port ${config.base.port}`;
+      deps.io.stderr.write(
+        codeOf(error) === 'EADDRINUSE'
+          ? `shiftprobe cannot start: PORT ${config.base.port} is already in use (${where}): another shiftprobe or another program is listening there. Stop it, or set PORT to a free port.\n`
+          : `shiftprobe cannot start: PORT ${config.base.port} may not be opened by this user (${where}). Use a port above 1023, or set PORT to one that is allowed.\n`,
+      );
+      return EX_CONFIG;
+    }
+    logger.error('shiftprobe could not start:', error);
+    return 1;
+  } finally {
+    daily?.stop();
+    for (const s of started.reverse()) await s.stop().catch((e: unknown) => logger.error(`stopping ${s.name} failed:`, e));
+    if (!deps.app) await app.close();
+  }
 }

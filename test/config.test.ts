@@ -29,7 +29,8 @@ describe('choosing the surface', () => {
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     expect(surfaceOf(r.config)).toBe('console');
-    expect(r.config.base).toEqual({ databasePath: './data/shiftprobe.db', port: 3000, host: undefined, logLevel: 'info' });
+    expect(r.config.base).toEqual({ port: 3000, host: undefined, logLevel: 'info' });
+    expect(r.config.storage).toEqual({ kind: 'sqlite', path: './data/shiftprobe.db' });
   });
 
   it('empty values (NAME= in a .env file) count as unset', () => {
@@ -67,7 +68,7 @@ describe('choosing the surface', () => {
     });
     expect(custom.ok && custom.config.slack?.slashCommand).toBe('/probe-3');
     expect(custom.ok && custom.config.slack?.apiUrl).toBe('http://127.0.0.1:4010/api/');
-    expect(custom.ok && custom.config.base.databasePath).toBe('/var/lib/shiftprobe/fab3.db');
+    expect(custom.ok && custom.config.storage).toEqual({ kind: 'sqlite', path: '/var/lib/shiftprobe/fab3.db' });
     expect(custom.ok && custom.config.base.logLevel).toBe('warn');
   });
 });

@@ -67,18 +67,6 @@ export interface HandleContext {
   readonly lots?: LotService;
 }
 
-export class MemoryResultStore implements ResultStore {
-  private readonly byId = new Map<string, ReplyOk>();
-  async save(reply: ReplyOk): Promise<void> {
-    const existing = this.byId.get(reply.id);
-    if (existing && JSON.stringify(existing) !== JSON.stringify(reply)) throw new ResultIdTakenError(reply.id);
-    this.byId.set(reply.id, reply);
-  }
-  async get(id: string): Promise<ReplyOk | undefined> {
-    return this.byId.get(id);
-  }
-}
-
 /** Result ids: 'r-' and six hex digits from the given random source. */
 export function resultIdFrom(random: () => number): () => string {
   return () =>

@@ -15,6 +15,7 @@
  *      command when one near word makes it read
  */
 import { errorReply } from '../reply/build.js';
+import { isResult } from '../reply/kinds.js';
 import type { Reply, ReplyChoice, ReplyError, ReplyOk } from '../reply/reply.js';
 import { ArgError, Args, AskError, type AskChoice } from './args.js';
 import { refuseUncovered } from './common.js';
@@ -27,14 +28,6 @@ import { editDistance, suggest } from './suggest.js';
 import { MAX_INPUT_CHARS, tokenize, type Token } from './tokens.js';
 import { parseQuantity, type Dimension } from './units.js';
 import { DOPANT_WORDS, MATERIAL_WORDS, PROBE_METHOD_WORDS } from './words.js';
-
-/** Commands whose replies are not results (nothing to share or explain later). */
-const NOT_RESULTS = new Set(['help', 'models', 'why']);
-
-/** Whether a reply is a result that can be kept, shared and explained (`why`). */
-export function isResult(reply: Reply): reply is ReplyOk {
-  return reply.ok && !NOT_RESULTS.has(reply.command);
-}
 
 /** A reading alone implies the command: "8.2 ohm-cm p" → rho. */
 const IMPLIED_VERB: Partial<Record<Dimension, string>> = {

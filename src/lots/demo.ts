@@ -2,7 +2,7 @@
  * The demo lot history (fixtures/lots/harrowgate-fab3-history.yaml, invented): parsed with zod
  * and written through the same plans as `record` and `clear`, with the clock set to each
  * entry's time. Every entry has a fixed event id ('demo-<index>'), so loading twice writes
- * nothing new. Synchronous (SQLite underneath is), so a test context can be seeded on the spot.
+ * nothing new. Written through the LotRepository port, so any backend takes it.
  */
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
@@ -14,7 +14,7 @@ import type { LotPhysics } from './physics.js';
 import { planClear, planRecord } from './plan.js';
 import { RecordRequest, type Actor } from './readings.js';
 import type { SpecCatalog } from './spec/schema.js';
-import type { SqliteLotRepository } from './sqlite/repository.js';
+import type { LotRepository } from './repository.js';
 
 export const DEMO_HISTORY_FILE = fileURLToPath(new URL('../../fixtures/lots/harrowgate-fab3-history.yaml', import.meta.url));
 
@@ -61,7 +61,7 @@ export function readDemoHistory(path: string = DEMO_HISTORY_FILE): DemoHistory {
 }
 
 export interface SeedDeps {
-  readonly repo: SqliteLotRepository;
+  readonly repo: LotRepository;
   readonly catalog: SpecCatalog;
   readonly physics: LotPhysics;
   readonly lotIds: LotIdRule;
@@ -75,11 +75,11 @@ export interface SeedResult {
 }
 
 /** Write the history; an entry whose event was written before is skipped. Throws on a bad fixture. */
-export function seedDemoHistory(deps: SeedDeps, history: DemoHistory = readDemoHistory()): SeedResult {
+export async function seedDemoHistory(deps: SeedDeps, history: DemoHistory = readDemoHistory()): Promise<SeedResult> {
   const readingIdOfEntry = new Map<number, number>();
   let written = 0;
   let skipped = 0;
-  history.entries.forEach((entry, index) => {
+  for (const [index, entry] of history.entries.entries()) {
     const person = history.people[entry.by];
     if (!person) throw new Error(`demo history entry ${index}: unknown person "${entry.by}"`);
     const actor: Actor = { userId: person.id, userName: person.name, surface: 'demo', channelId: 'demo' };
@@ -89,13 +89,13 @@ export function seedDemoHistory(deps: SeedDeps, history: DemoHistory = readDemoH
       const lotId = normalizeLotId(entry.clear.lot, deps.lotIds);
       const code = flagCodeFromWord(entry.clear.flag);
       if (!lotId || !code || !FLAG_CODES.includes(code)) throw new Error(`demo history entry ${index}: bad clear`);
-      const r = deps.repo.commitClearSync({ lotId, eventId, actor, at }, (state) =>
+      const r = await deps.repo.commitClear({ lotId, eventId, actor, at }, (state) =>
         planClear(lotId, { kind: 'code', code, ...(entry.clear.wafer !== undefined ? { wafer: entry.clear.wafer } : {}) }, entry.because, state),
       );
       if (!r.ok) throw new Error(`demo history entry ${index}: ${JSON.stringify(r.error)}`);
       if (r.duplicate) skipped += 1;
       else written += 1;
-      return;
+      continue;
     }
     const corrects = entry.correctsEntry !== undefined ? readingIdOfEntry.get(entry.correctsEntry) : undefined;
     if (entry.correctsEntry !== undefined && corrects === undefined) {
@@ -134,7 +134,7 @@ export function seedDemoHistory(deps: SeedDeps, history: DemoHistory = readDemoH
     });
     const lotId = normalizeLotId(request.lotId, deps.lotIds);
     if (!lotId) throw new Error(`demo history entry ${index}: lot id ${request.lotId} does not fit the lot pattern`);
-    const r = deps.repo.commitRecordSync(
+    const r = await deps.repo.commitRecord(
       { lotId, eventId, actor, at, ...(corrects !== undefined ? { corrects } : {}) },
       (state) => planRecord({ lotId, request: { ...request, lotId }, catalog: deps.catalog, physics: deps.physics }, state),
     );
@@ -143,6 +143,6 @@ export function seedDemoHistory(deps: SeedDeps, history: DemoHistory = readDemoH
     if (first) readingIdOfEntry.set(index, first.id);
     if (r.duplicate) skipped += 1;
     else written += 1;
-  });
+  }
   return { written, skipped };
 }

@@ -1,7 +1,6 @@
 /**
- * The storage boundary of the lot domain. The domain talks only to this interface; SQLite
- * (sqlite/repository.ts) is the embedded implementation, and a PostgreSQL one can follow
- * without touching the domain.
+ * The storage boundary of the lot domain (a port). The domain talks only to this interface; the
+ * backends in src/adapters/storage (SQLite, PostgreSQL) implement it.
  *
  * Writes take a *plan* function: the repository opens one write transaction, loads the lot's
  * state, calls the plan (pure, synchronous) and writes what it returns — all or nothing. Two
@@ -171,6 +170,7 @@ export interface LotRepository {
   findLotIds(prefix: string, limit: number): Promise<string[]>;
   listFlags(query: FlagQuery): Promise<FlagWithProduct[]>;
   countReadings(): Promise<number>;
+  countLots(): Promise<number>;
 
   /** Insert the claim row for (channel, local date); true when this caller now owns it. */
   claimDigest(claim: DigestClaim): Promise<boolean>;

@@ -3,6 +3,7 @@
  * by src/reply/format.ts, the same as on every other surface.
  */
 import { formatNumber } from '../reply/format.js';
+import { isExplainable } from '../reply/kinds.js';
 import type { Reply, ReplyError, ReplyOk, ReplySection, ReplyValue } from '../reply/reply.js';
 
 export interface TextOptions {
@@ -118,7 +119,7 @@ function okText(r: ReplyOk, width: number): string {
     out.push('');
     for (const c of r.cautions) out.push(wrap(`⚠ ${c}`, width, '  '));
   }
-  if (r.command !== 'help' && r.command !== 'models' && r.command !== 'why') {
+  if (isExplainable(r)) {
     out.push('', `  ${r.id} · type “why ${r.id}” for the full derivation`);
   }
   return out.join('\n');

@@ -1,5 +1,6 @@
 /** A HandleContext for tests: fixed clock, counting ids, in-memory result store. */
-import { MemoryResultStore, type HandleContext, type Surface } from '../../src/commands/context.js';
+import { MemoryResultStore } from '../../src/adapters/storage/memory.js';
+import { type HandleContext, type Surface } from '../../src/commands/context.js';
 import type { LotService } from '../../src/lots/service.js';
 import { demoLots } from './lots.js';
 

@@ -19,7 +19,7 @@ describe('lot settings', () => {
     expect(lots.digest).toEqual({ at: '07:00', timeZone: 'UTC' });
     expect(lots.permissions.recordUsers.size + lots.permissions.clearChannels.size).toBe(0);
     expect(lots.lotIds.pattern.test('LOT-A17')).toBe(true);
-    expect(r.config.base.databasePath).toBe('./data/shiftprobe.db');
+    expect(r.config.storage).toEqual({ kind: 'sqlite', path: './data/shiftprobe.db' });
   });
 
   it('reads ids, channel, time and zone', () => {

@@ -6,7 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { corePhysics } from '../../src/lots/core-physics.js';
 import { readDemoHistory, seedDemoHistory } from '../../src/lots/demo.js';
 import { lotIdRule } from '../../src/lots/ids.js';
-import { SqliteLotRepository } from '../../src/lots/sqlite/repository.js';
+import { SqliteLotRepository } from '../../src/adapters/storage/sqlite/lots-repository.js';
 import { demoCatalog } from './harness.js';
 
 describe('demo history', () => {
@@ -14,9 +14,9 @@ describe('demo history', () => {
     const repo = SqliteLotRepository.open(':memory:');
     const deps = { repo, catalog: demoCatalog(), physics: corePhysics, lotIds: lotIdRule(), now: new Date('2026-11-30T14:05:00Z') };
     const history = readDemoHistory();
-    const first = seedDemoHistory(deps, history);
+    const first = await seedDemoHistory(deps, history);
     expect(first).toEqual({ written: history.entries.length, skipped: 0 });
-    expect(seedDemoHistory(deps, history)).toEqual({ written: 0, skipped: history.entries.length });
+    expect(await seedDemoHistory(deps, history)).toEqual({ written: 0, skipped: history.entries.length });
 
     const open = await repo.listFlags({ openOnly: true });
     const byLot = (lot: string) => open.filter((f) => f.lotId === lot).map((f) => f.code).sort();

@@ -13,7 +13,7 @@ import type { Actor } from '../../src/lots/readings.js';
 import { LotService } from '../../src/lots/service.js';
 import { loadSpecFile } from '../../src/lots/spec/load.js';
 import type { SpecCatalog } from '../../src/lots/spec/schema.js';
-import { SqliteLotRepository } from '../../src/lots/sqlite/repository.js';
+import { SqliteLotRepository } from '../../src/adapters/storage/sqlite/lots-repository.js';
 
 export function demoCatalog(): SpecCatalog {
   const load = loadSpecFile(DEMO_SPEC_FILE, { demo: true });

@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import Database from 'better-sqlite3';
 import { afterAll, describe, expect, it } from 'vitest';
-import { SqliteLotRepository } from '../../src/lots/sqlite/repository.js';
+import { SqliteLotRepository } from '../../src/adapters/storage/sqlite/lots-repository.js';
 import { tempDir } from './harness.js';
 
 const CHILD = fileURLToPath(new URL('./children/record-loop.ts', import.meta.url));

@@ -13,7 +13,7 @@ import { DEMO_SPEC_FILE } from '../../src/lots/config.js';
 import { lotIdRule } from '../../src/lots/ids.js';
 import { NO_CHAT_WRITERS } from '../../src/lots/permissions.js';
 import { startLots } from '../../src/lots/runtime.js';
-import { openDatabase } from '../../src/store/db.js';
+import { openSqliteBackend } from '../../src/adapters/storage/sqlite/backend.js';
 import { tempDir } from './harness.js';
 
 const tmp = tempDir();
@@ -29,22 +29,22 @@ const config = (specFile = DEMO_SPEC_FILE, demoSpecs = true) => ({
 });
 
 describe('startLots', () => {
-  it('a bad spec file stops start-up with the line and field', () => {
+  it('a bad spec file stops start-up with the line and field', async () => {
     const bad = join(tmp.dir, 'bad-specs.yaml');
     writeFileSync(bad, 'products:\n  HX-200P:\n    type: p\n    dopant: boron\n    resistivityOhmCm: { min: 12, max: 8 }\n');
-    const r = startLots(openDatabase(':memory:', []), config(bad, false));
+    const r = await startLots(openSqliteBackend(':memory:').lots, config(bad, false));
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.message).toContain('bad-specs.yaml line 5, column 39 products.HX-200P.resistivityOhmCm.max: min must be below max');
   });
 
   it('loads the demo history into an empty store once, and never into a store that has lots', async () => {
     const path = join(tmp.dir, 'demo.db');
-    const first = startLots(openDatabase(path, []), config(), { now: () => NOW });
+    const first = await startLots(openSqliteBackend(path).lots, config(), { now: () => NOW });
     expect(first.ok && first.lots.demoEntriesWritten).toBeGreaterThan(20);
     if (!first.ok) return;
     const readings = await first.lots.repo.countReadings();
     await first.lots.repo.close();
-    const again = startLots(openDatabase(path, []), config(), { now: () => NOW });
+    const again = await startLots(openSqliteBackend(path).lots, config(), { now: () => NOW });
     expect(again.ok && again.lots.demoEntriesWritten).toBe(0);
     if (again.ok) {
       expect(await again.lots.repo.countReadings()).toBe(readings);
@@ -53,7 +53,7 @@ describe('startLots', () => {
     // Not with the fab's own specs.
     const own = join(tmp.dir, 'own-specs.yaml');
     writeFileSync(own, 'products:\n  HX-200P:\n    type: p\n    dopant: boron\n    resistivityOhmCm: { min: 8, max: 12 }\n');
-    const real = startLots(openDatabase(join(tmp.dir, 'real.db'), []), config(own, false), { now: () => NOW });
+    const real = await startLots(openSqliteBackend(join(tmp.dir, 'real.db')).lots, config(own, false), { now: () => NOW });
     expect(real.ok && (await real.lots.repo.countReadings())).toBe(0);
   });
 });

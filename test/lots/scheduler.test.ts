@@ -8,7 +8,8 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import type { Digest } from '../../src/lots/digest.js';
-import { DigestScheduler, type Publish } from '../../src/lots/scheduler.js';
+import { DailySummaryJob, DigestScheduler, type Publish } from '../../src/app/daily-summary.js';
+import { MemoryResultStore } from '../../src/adapters/storage/memory.js';
 import { CONSOLE, makeHarness, rho, tempDir, type Harness } from './harness.js';
 
 const CHANNEL = 'C0DIGEST1';
@@ -228,7 +229,19 @@ describe('croner drives the job', () => {
     const h = makeHarness({ channel: CHANNEL });
     const { publish } = collector();
     h.clock.set('2025-06-10T06:00:00Z');
-    const s = schedulerFor(h, publish);
+    void publish;
+    const s = new DailySummaryJob({
+      service: h.service,
+      repo: h.repo,
+      results: new MemoryResultStore(),
+      at: '07:00',
+      timeZone: 'Europe/London',
+      now: () => h.clock.now,
+      newId: () => 'r-000001',
+      demo: false,
+      instanceId: 'test-1',
+      notifiers: [{ surface: 'test', destination: CHANNEL, notify: async () => undefined }],
+    });
     await s.start();
     const next = s.nextRun();
     expect(next).toBeDefined();

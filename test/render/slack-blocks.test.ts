@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { MemoryResultStore, type HandleContext } from '../../src/commands/context.js';
+import { MemoryResultStore } from '../../src/adapters/storage/memory.js';
+import { type HandleContext } from '../../src/commands/context.js';
 import { handle } from '../../src/commands/handle.js';
 import { COMMANDS } from '../../src/commands/registry.js';
 import { renderSlackMessage, SLACK_ACTION_IDS, type CardAction } from '../../src/render/slack-blocks.js';

@@ -1,20 +1,22 @@
 /**
  * The local console: a prompt, command history (kept between runs next to the database),
  * `help`, the same replies as every other surface rendered as text. `exit` or Ctrl-D leaves.
- * Thin: read a line, handle it, print the rendered reply.
+ * Thin: read a line, ask the application layer, print the rendered reply.
  */
 import { appendFileSync, existsSync, mkdirSync, readFileSync } from 'node:fs';
 import { dirname } from 'node:path';
 import { createInterface } from 'node:readline';
 import type { Readable, Writable } from 'node:stream';
-import type { HandleContext } from '../../commands/context.js';
-import { handle } from '../../commands/handle.js';
+import type { Asked, Question } from '../../app/application.js';
+import type { SummaryNotifier } from '../../app/daily-summary.js';
 import { renderText } from '../../render/text.js';
 
 export interface ConsoleOptions {
   readonly input: Readable;
   readonly output: Writable;
-  readonly context: HandleContext;
+  /** The application layer's `ask`, and who is at the console. */
+  readonly ask: (question: Question) => Promise<Asked>;
+  readonly caller: Question['caller'];
   /** File for command history; none when undefined. */
   readonly historyPath?: string;
   readonly terminal?: boolean;
@@ -35,7 +37,9 @@ function loadHistory(path: string | undefined): string[] {
 }
 
 export async function runConsole(options: ConsoleOptions): Promise<void> {
-  const { output, context } = options;
+  const { output } = options;
+  // One session for the whole run: a bare `why` and the answer to a question asked just before.
+  const session: NonNullable<Question['session']> = {};
   const terminal = options.terminal ?? Boolean((options.output as { isTTY?: boolean }).isTTY);
   const rl = createInterface({
     input: options.input,
@@ -54,11 +58,26 @@ export async function runConsole(options: ConsoleOptions): Promise<void> {
     if (text === 'exit' || text === 'quit') break;
     if (text !== '') {
       if (options.historyPath) appendFileSync(options.historyPath, text.replace(/\n/g, ' ') + '\n');
-      const reply = await handle(text, context);
-      output.write(renderText(reply, { width }) + '\n\n');
+      const asked = await options.ask({ text, surface: 'console', caller: options.caller, session });
+      if (!asked.duplicate) {
+        output.write(renderText(asked.reply, { width }) + '\n\n');
+        await asked.settle();
+      }
     }
     rl.prompt();
   }
   rl.close();
   output.write('bye\n');
+}
+
+/** The daily summary printed in the console at DIGEST_AT. */
+export function consoleSummaryNotifier(output: Writable): SummaryNotifier {
+  return {
+    surface: 'console',
+    destination: 'console',
+    async notify(reply) {
+      const width = Math.min((output as { columns?: number }).columns ?? 88, 100);
+      output.write(`\n${renderText(reply, { width })}\n\n`);
+    },
+  };
 }

@@ -7,7 +7,8 @@
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import { App, HTTPReceiver, SocketModeReceiver, webApi, type Logger } from '@slack/bolt';
-import type { SlackConfig } from '../../config.js';
+import { SurfaceConfigError } from '../../app/surface.js';
+import type { SlackConfig } from './config.js';
 import type { SlackDeps } from './deps.js';
 import { installErrorHandler } from './errors.js';
 import { healthRoutes, healthServer, Readiness } from './health.js';
@@ -33,17 +34,6 @@ export interface SlackRuntime {
   /** Listens, checks the bot token with Slack, connects (Socket Mode); resolves with the HTTP port. */
   start(): Promise<{ port: number }>;
   stop(): Promise<void>;
-}
-
-/** Start-up failed for a reason the operator must fix; names the variable, never its value. */
-export class SlackStartError extends Error {
-  constructor(
-    readonly variable: string,
-    message: string,
-  ) {
-    super(message);
-    this.name = 'SlackStartError';
-  }
 }
 
 /** How long stopping waits for answers in flight. */
@@ -148,7 +138,7 @@ export function createSlackApp(options: SlackAppOptions): SlackRuntime {
       const code = slackErrorCode(error);
       if (REJECTED.has(code)) {
         readiness.slack = 'rejected';
-        throw new SlackStartError('SLACK_BOT_TOKEN', `Slack did not accept SLACK_BOT_TOKEN (${code}). Copy the Bot User OAuth Token (xoxb-…) from OAuth & Permissions again, or reinstall the app.`);
+        throw new SurfaceConfigError('SLACK_BOT_TOKEN', `Slack did not accept SLACK_BOT_TOKEN (${code}). Copy the Bot User OAuth Token (xoxb-…) from OAuth & Permissions again, or reinstall the app.`);
       }
       logger.warn(`Slack is not reachable yet (${code}); retrying.`);
       return false;
@@ -180,7 +170,7 @@ export function createSlackApp(options: SlackAppOptions): SlackRuntime {
             await app.start();
           } catch (error) {
             const code = slackErrorCode(error);
-            throw new SlackStartError('SLACK_APP_TOKEN', `Slack did not open a Socket Mode connection (${code}). Check SLACK_APP_TOKEN (xapp-…, with the connections:write scope) and that Socket Mode is on.`);
+            throw new SurfaceConfigError('SLACK_APP_TOKEN', `Slack did not open a Socket Mode connection (${code}). Check SLACK_APP_TOKEN (xapp-…, with the connections:write scope) and that Socket Mode is on.`);
           }
         }
         if (receiver instanceof HTTPReceiver) {

@@ -1,8 +1,9 @@
 /**
- * Which card goes where: the renderer draws it, this decides the buttons. Results can be shared
- * and explained; `why` answers can be shared; help and model lists are neither.
+ * Which card goes where: the renderer draws it, this decides the buttons from the one rule in
+ * src/reply/kinds.ts (results can be shared and explained, `why` answers shared).
  */
 import { renderSlackMessage, type CardAction, type SlackMessage } from '../../render/slack-blocks.js';
+import { isExplainable, isShareable } from '../../reply/kinds.js';
 import type { Reply } from '../../reply/reply.js';
 
 /**
@@ -11,24 +12,6 @@ import type { Reply } from '../../reply/reply.js';
  * shown privately by a button.
  */
 export type Place = 'private' | 'thread' | 'dm' | 'shared' | 'derivation';
-
-const NEVER_SHARED = new Set(['help', 'models']);
-
-export function isShareable(reply: Reply): boolean {
-  return reply.ok && !NEVER_SHARED.has(reply.command);
-}
-
-export function isExplainable(reply: Reply): boolean {
-  return isShareable(reply) && reply.ok && reply.command !== 'why';
-}
-
-/**
- * `handle` keeps results but not `why` answers (they restate an earlier result); their cards can
- * still be shared, so the adapter keeps those itself.
- */
-export function mustKeep(reply: Reply): reply is Extract<Reply, { ok: true }> {
-  return reply.ok && reply.command === 'why' && isShareable(reply);
-}
 
 export function actionsFor(reply: Reply, place: Place): CardAction[] {
   if (!isShareable(reply)) return [];

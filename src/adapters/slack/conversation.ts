@@ -1,10 +1,8 @@
 /**
- * One question from Slack to `handle`: who asked, where, under which event key, with the
- * conversation's memory (the last result, for a bare `why`) loaded before and saved after.
+ * One question from Slack to the application layer: who asked, where, under which event key
+ * and conversation (the application claims the event and loads and saves the memory).
  */
-import { contextFor } from '../../app.js';
 import type { Reply } from '../../reply/reply.js';
-import { mustKeep } from './cards.js';
 import type { SlackDeps } from './deps.js';
 import { markAnswered } from './errors.js';
 
@@ -36,21 +34,27 @@ export interface Asked {
   settle(): Promise<void>;
 }
 
-export async function ask(deps: SlackDeps, text: string, where: Where): Promise<Asked> {
-  const key = conversationKey(where);
-  const before = await deps.conversations.lastResult(key);
-  const session: { lastResultId?: string } = before ? { lastResultId: before } : {};
+/**
+ * Ask the application once; null when the event was handled already (a retry, a
+ * redelivery, or another instance has it).
+ */
+export async function ask(deps: SlackDeps, text: string, where: Where): Promise<Asked | null> {
   const displayName = deps.displayName ? await deps.displayName(where.userId).catch(() => undefined) : undefined;
   const caller = { userId: where.userId, channelId: where.channelId, ...(displayName ? { displayName } : {}) };
-  const ctx = { ...contextFor(deps, 'slack', caller, session, where.eventKey), log: deps.logger };
-  const reply = await deps.handle(text, ctx);
-  if (mustKeep(reply)) await deps.results.save(reply);
+  const asked = await deps.ask({
+    text,
+    surface: 'slack',
+    caller,
+    eventKey: where.eventKey,
+    conversationKey: conversationKey(where),
+    log: deps.logger,
+  });
+  if (asked.duplicate) return null;
   return {
-    reply,
+    reply: asked.reply,
     settle: async () => {
       try {
-        if (session.lastResultId && session.lastResultId !== before) await deps.conversations.setLastResult(key, session.lastResultId);
-        await deps.ledger.complete(where.eventKey);
+        await asked.settle();
       } catch (error) {
         // The answer is out already: log this (global handler), don't tell the person it failed.
         throw markAnswered(error);

@@ -1,29 +1,25 @@
 /**
- * What the Slack adapter needs from the rest of shiftprobe, injected: the command handler, the
- * stores, the clock and ids, the logger and fetch (for Slack's response URLs). Tests pass a
- * fixed clock, in-memory or temporary stores and a logger that captures lines.
+ * What the Slack adapter needs from the rest of shiftprobe, injected: the application layer's
+ * `ask` (src/app/application.ts), the stores the buttons use, the clock, the logger and fetch
+ * (for Slack's response URLs). Tests pass a fixed clock, temporary stores and a logger that
+ * captures lines.
  */
 import type { Logger } from '@slack/bolt';
-import type { HandleContext, ResultStore } from '../../commands/context.js';
-import type { LotsRuntime } from '../../lots/runtime.js';
-import type { Reply } from '../../reply/reply.js';
-import type { ConversationMemory } from '../../store/conversations.js';
-import type { EventLedger } from '../../store/event-ledger.js';
-
-/** `handle` from src/commands/handle.ts, or any function of the same shape. */
-export type Handler = (text: string, ctx: HandleContext) => Promise<Reply>;
+import type { Asked, Question } from '../../app/application.js';
+import type { ConversationMemory, EventLedger } from '../../app/ports.js';
+import type { ResultStore } from '../../commands/context.js';
 
 export interface SlackDeps {
-  readonly handle: Handler;
+  /** One question, once: claim, handle, keep (the application layer). */
+  readonly ask: (question: Question) => Promise<Asked>;
   readonly results: ResultStore;
   readonly ledger: EventLedger;
   readonly conversations: ConversationMemory;
   readonly now: () => Date;
-  readonly newId: () => string;
   readonly logger: Logger;
   readonly fetch: typeof fetch;
   /** Whether the store answers (for /readyz). */
-  readonly storeHealthy: () => boolean;
+  readonly storeHealthy: () => Promise<boolean>;
   /**
    * How long a slash command may compute before it is acknowledged with "working on it" and
    * answered through its response URL instead (Slack's window is 3 s; the default leaves room).
@@ -31,8 +27,6 @@ export interface SlackDeps {
   readonly ackDeadlineMs: number;
   /** Timeout for the optional channel-history call that lists recent threads. */
   readonly historyTimeoutMs: number;
-  /** Lot records (record, lot, flags, clear, digest) when wired. */
-  readonly lots?: LotsRuntime;
   /** Display names for replies (users.info, cached); ids when absent. */
   readonly displayName?: (userId: string) => Promise<string | undefined>;
 }

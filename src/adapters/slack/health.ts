@@ -9,9 +9,9 @@ export type SlackLink = 'connecting' | 'connected' | 'reconnecting' | 'rejected'
 
 export class Readiness {
   slack: SlackLink = 'connecting';
-  constructor(private readonly storeHealthy: () => boolean) {}
-  report(): { ready: boolean; store: 'ok' | 'failing'; slack: SlackLink } {
-    const store = this.storeHealthy() ? 'ok' : 'failing';
+  constructor(private readonly storeHealthy: () => Promise<boolean>) {}
+  async report(): Promise<{ ready: boolean; store: 'ok' | 'failing'; slack: SlackLink }> {
+    const store = (await this.storeHealthy().catch(() => false)) ? 'ok' : 'failing';
     return { ready: store === 'ok' && this.slack === 'connected', store, slack: this.slack };
   }
 }
@@ -35,8 +35,7 @@ export function healthRoutes(readiness: Readiness): HealthRoute[] {
       path: '/readyz',
       method: ['GET', 'HEAD'],
       handler: (_req, res) => {
-        const r = readiness.report();
-        json(res, r.ready ? 200 : 503, r);
+        void readiness.report().then((r) => json(res, r.ready ? 200 : 503, r));
       },
     },
   ];

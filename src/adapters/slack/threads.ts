@@ -6,7 +6,7 @@
  * latter, and a pasted message link always works.
  */
 import type { webApi } from '@slack/bolt';
-import type { ConversationMemory } from '../../store/conversations.js';
+import type { ConversationMemory } from '../../app/ports.js';
 import { commandTextFromSlack } from './incoming-text.js';
 import { within } from './outbound.js';
 import { slackErrorCode } from './slack-errors.js';

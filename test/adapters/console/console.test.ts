@@ -4,17 +4,22 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runConsole } from '../../../src/adapters/console/console.js';
-import { testContext } from '../../helpers/context.js';
+import { Application } from '../../../src/app/application.js';
+import { openSqliteBackend } from '../../../src/adapters/storage/sqlite/backend.js';
+import { FIXED_NOW } from '../../helpers/context.js';
 
 async function session(lines: string[], historyPath?: string): Promise<string> {
   const input = new PassThrough();
   const output = new PassThrough();
   let text = '';
   output.on('data', (d: Buffer) => (text += d.toString('utf8')));
-  const done = runConsole({ input, output, context: testContext(), terminal: false, ...(historyPath ? { historyPath } : {}) });
+  const app = await Application.open(openSqliteBackend(':memory:'), { now: () => FIXED_NOW });
+  const caller = { userId: 'priya', displayName: 'priya', channelId: 'console' };
+  const done = runConsole({ input, output, ask: (q) => app.ask(q), caller, terminal: false, ...(historyPath ? { historyPath } : {}) });
   for (const l of lines) input.write(l + '\n');
   input.end();
   await done;
+  await app.close();
   return text;
 }
 
@@ -48,5 +53,14 @@ describe('local console', () => {
     const out = await session(['rhp 8 ohm-cm p', 'rho 8.2 ohm-cm p']);
     expect(out).toContain('Did you mean: rho 8 ohm-cm p?');
     expect(out).toContain('Boron density');
+  });
+});
+
+describe('the console keeps one conversation', () => {
+  it('a bare `why` explains the last result, and a short answer runs the question just asked', async () => {
+    const out = await session(['rho 8.2 ohm-cm p', 'why', 'rho 5 ohm-cm P', 'p']);
+    expect(out).toContain('μ = 1/(q·N·ρ)');
+    expect(out).toContain('p-type (boron) or phosphorus');
+    expect(out.split('Boron density').length).toBeGreaterThanOrEqual(3);
   });
 });

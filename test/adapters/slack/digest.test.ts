@@ -6,10 +6,10 @@
  */
 import { webApi } from '@slack/bolt';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import { slackDigestPublisher } from '../../../src/adapters/slack/digest.js';
-import { DigestScheduler } from '../../../src/lots/scheduler.js';
+import { slackSummaryNotifier } from '../../../src/adapters/slack/digest.js';
+import { DailySummaryJob } from '../../../src/app/daily-summary.js';
 import { checkMessageLimits } from '../../../src/render/slack/limits.js';
-import { MemoryResultStore } from '../../../src/commands/context.js';
+import { MemoryResultStore } from '../../../src/adapters/storage/memory.js';
 import { demoLots } from '../../helpers/lots.js';
 import { FakeSlack, FAKE_BOT_USER } from './support/fake-slack.js';
 import { FIXED_NOW, startTestApp, TEST_BOT_TOKEN, TEST_SIGNING_SECRET, type TestApp } from './support/harness.js';
@@ -27,12 +27,9 @@ afterEach(async () => {
   app = undefined;
 });
 
-const PERMISSIONS = { recordUsers: new Set(['U0PRIYA']), recordChannels: new Set<string>(), clearUsers: new Set(['U0PRIYA']), clearChannels: new Set<string>() };
-
 async function start() {
-  const lots = demoLots(() => FIXED_NOW, PERMISSIONS);
-  app = await startTestApp({ fake, overrides: { lots } });
-  return { a: app, lots };
+  app = await startTestApp({ fake, env: { RECORD_USERS: 'U0PRIYA', CLEAR_USERS: 'U0PRIYA' } });
+  return { a: app, lots: app.app.lots! };
 }
 
 let triggers = 0;
@@ -103,12 +100,23 @@ describe('the daily summary in Slack', () => {
   it('two schedulers firing together post one summary card to DIGEST_CHANNEL', async () => {
     const lots = demoLots(() => new Date('2026-11-30T07:00:00Z'));
     const client = new webApi.WebClient(TEST_BOT_TOKEN, { slackApiUrl: fake.apiUrl });
-    const publish = slackDigestPublisher(client, { now: () => FIXED_NOW, newId: () => 'r-d1gest', results: new MemoryResultStore(), demo: true });
+    const results = new MemoryResultStore();
     const make = (id: string) =>
-      new DigestScheduler({ service: lots.service, repo: lots.repo, channel: 'C0DIGEST1', at: '07:00', timeZone: 'Europe/London', now: () => new Date('2026-11-30T07:00:00Z'), publish, instanceId: id });
+      new DailySummaryJob({
+        service: lots.service,
+        repo: lots.repo,
+        results,
+        at: '07:00',
+        timeZone: 'Europe/London',
+        now: () => new Date('2026-11-30T07:00:00Z'),
+        newId: () => `r-d1ge${id.length}`,
+        demo: true,
+        instanceId: id,
+        notifiers: [slackSummaryNotifier(client, 'C0DIGEST1')],
+      });
     const before = fake.callsTo('chat.postMessage').filter((c) => c.params['channel'] === 'C0DIGEST1').length;
-    const results = await Promise.all([make('one').runDue(), make('two').runDue()]);
-    expect(results.map((r) => r.status).sort()).toEqual(['posted', 'taken']);
+    const runs = (await Promise.all([make('one').runDue(), make('two').runDue()])).flat();
+    expect(runs.map((r) => r.status).sort()).toEqual(['posted', 'taken']);
     const posts = fake.callsTo('chat.postMessage').filter((c) => c.params['channel'] === 'C0DIGEST1');
     expect(posts.length - before).toBe(1);
     const post = posts[posts.length - 1]!;

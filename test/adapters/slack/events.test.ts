@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { handle } from '../../../src/commands/handle.js';
 import { COMMANDS } from '../../../src/commands/registry.js';
-import type { Handler } from '../../../src/adapters/slack/index.js';
+import type { Handler } from '../../../src/app/application.js';
 import { checkMessageLimits } from '../../../src/render/slack/limits.js';
 import { SLACK_ACTION_IDS } from '../../../src/render/slack-blocks.js';
 import { FAKE_BOT_USER, FakeSlack } from './support/fake-slack.js';

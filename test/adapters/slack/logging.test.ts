@@ -5,7 +5,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createLogger, redact } from '../../../src/adapters/slack/logger.js';
-import type { Handler } from '../../../src/adapters/slack/index.js';
+import type { Handler } from '../../../src/app/application.js';
 import { handle } from '../../../src/commands/handle.js';
 import { SLACK_ACTION_IDS } from '../../../src/render/slack-blocks.js';
 import { FAKE_BOT_USER, FakeSlack } from './support/fake-slack.js';

@@ -5,7 +5,7 @@
  */
 import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { handle } from '../../../src/commands/handle.js';
-import type { Handler } from '../../../src/adapters/slack/index.js';
+import type { Handler } from '../../../src/app/application.js';
 import { FAKE_BOT_USER, FakeSlack } from './support/fake-slack.js';
 import { startTestApp, TEST_SIGNING_SECRET, type TestApp } from './support/harness.js';
 import { eventCallbackBody, FORM, JSON_TYPE, sendToSlackEndpoint, signature, slashCommandBody, type SendOptions } from './support/signed.js';

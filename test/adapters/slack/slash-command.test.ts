@@ -3,8 +3,7 @@ import { handle } from '../../../src/commands/handle.js';
 import { COMMANDS } from '../../../src/commands/registry.js';
 import { checkMessageLimits } from '../../../src/render/slack/limits.js';
 import { SLACK_ACTION_IDS } from '../../../src/render/slack-blocks.js';
-import type { Handler } from '../../../src/adapters/slack/index.js';
-import { MemoryConversationMemory } from '../../../src/store/conversations.js';
+import type { Handler } from '../../../src/app/application.js';
 import { FakeSlack } from './support/fake-slack.js';
 import { startTestApp, TEST_SIGNING_SECRET, type TestApp, type TestAppOptions } from './support/harness.js';
 import { FORM, sendToSlackEndpoint, slashCommandBody } from './support/signed.js';
@@ -56,7 +55,7 @@ describe('slash command', () => {
     const id = buttons[0]!.value!;
     expect(id).toMatch(/^r-[0-9a-f]{6}$/);
     expect(buttons.every((b) => b.value === id)).toBe(true);
-    expect((await a.services.results.get(id))?.command).toBe('rho');
+    expect((await a.app.results.get(id))?.command).toBe('rho');
     expect(fake.callsTo('chat.postMessage')).toEqual([]);
   });
 
@@ -148,12 +147,10 @@ describe('when something fails on our side', () => {
   });
 
   it('after the answer is out (bookkeeping fails): the card stands, the failure is only logged', async () => {
-    class ForgetfulMemory extends MemoryConversationMemory {
-      override async setLastResult(): Promise<void> {
-        throw new Error('disk full while remembering the last result');
-      }
-    }
-    const a = await start({ overrides: { conversations: new ForgetfulMemory() } });
+    const a = await start();
+    a.app.conversations.setLastResult = async () => {
+      throw new Error('disk full while remembering the last result');
+    };
     const { body, trigger } = await slash(a, 'ni 85C');
     expect(JSON.stringify(body.blocks)).toContain('cm⁻³');
     await fake.until(() => a.logs.some((l) => l.includes('disk full while remembering')));

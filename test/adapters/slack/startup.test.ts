@@ -3,9 +3,10 @@
  */
 import { Writable } from 'node:stream';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import { openServices } from '../../../src/app.js';
+import { Application, type Handler } from '../../../src/app/application.js';
+import { openSqliteBackend } from '../../../src/adapters/storage/sqlite/backend.js';
 import { loadConfig } from '../../../src/config.js';
-import { startSlack, type Handler } from '../../../src/adapters/slack/index.js';
+import { serve } from '../../../src/main.js';
 import { handle } from '../../../src/commands/handle.js';
 import { FAKE_BOT_USER, FakeSlack } from './support/fake-slack.js';
 import { FakeSocketMode } from './support/fake-socket.js';
@@ -36,7 +37,7 @@ async function getJson(url: string): Promise<{ status: number; body: Record<stri
 describe('HTTP mode', () => {
   it('/healthz says alive; /readyz is ready once the store answers and Slack accepted the token', async () => {
     let storeOk = true;
-    const a = await startTestApp({ fake, overrides: { storeHealthy: () => storeOk } });
+    const a = await startTestApp({ fake, overrides: { storeHealthy: async () => storeOk } });
     apps.push(a);
     expect(await getJson(`${a.url}/healthz`)).toEqual({ status: 200, body: { status: 'alive' } });
     expect(await getJson(`${a.url}/readyz`)).toEqual({ status: 200, body: { ready: true, store: 'ok', slack: 'connected' } });
@@ -49,9 +50,9 @@ describe('HTTP mode', () => {
     const a = await startTestApp({ fake });
     apps.push(a);
     expect((await getJson(`${a.url}/readyz`)).status).toBe(200);
-    a.services.db.close();
+    await a.app.backend.close();
     expect(await getJson(`${a.url}/readyz`)).toEqual({ status: 503, body: { ready: false, store: 'failing', slack: 'connected' } });
-    // stop() closes the services again; better-sqlite3 allows a second close.
+    // stop() closes the backend again, which is allowed.
   });
 
   it('while Slack cannot be reached, the app is alive but not ready, and becomes ready when Slack answers', async () => {
@@ -157,9 +158,9 @@ describe('Socket Mode', () => {
     });
     const loaded = loadConfig({ SLACK_BOT_TOKEN: TEST_BOT_TOKEN, SLACK_APP_TOKEN: TEST_APP_TOKEN, SLACK_API_URL: fake.apiUrl, PORT: '0', HOST: '127.0.0.1' });
     if (!loaded.ok) throw new Error('config');
-    const services = openServices(':memory:');
-    const code = await startSlack(loaded.config, { io: { stderr }, services, stopSignal: new Promise(() => undefined) });
-    services.close();
+    const app = await Application.open(openSqliteBackend(':memory:'));
+    const code = await serve(loaded.config, { io: { stderr }, app, stopSignal: new Promise(() => undefined) });
+    await app.close();
     expect(code).toBe(78);
     const out = lines.join('');
     expect(out).toContain('SLACK_APP_TOKEN');

@@ -5,11 +5,7 @@ import { CONFIRM_PROCEDURE } from '../../../src/reply/cautions.js';
 import type { Reply, ReplyOk } from '../../../src/reply/reply.js';
 import { FIXED_NOW, testContext } from '../../helpers/context.js';
 import { demoLots } from '../../helpers/lots.js';
-import { DEMO_SPEC_FILE } from '../../../src/lots/config.js';
-import { lotIdRule } from '../../../src/lots/ids.js';
 import { NO_CHAT_WRITERS } from '../../../src/lots/permissions.js';
-import { startLots } from '../../../src/lots/runtime.js';
-import { openDatabase } from '../../../src/store/db.js';
 
 function ok(r: Reply): ReplyOk {
   if (!r.ok) throw new Error(`${r.error.code}: ${r.error.message}`);
@@ -97,15 +93,7 @@ describe('clear', () => {
 
 /** A lot store with the demo specs and no history. */
 function emptyLotsContext() {
-  const started = startLots(openDatabase(':memory:', []), {
-    specFile: DEMO_SPEC_FILE,
-    demoSpecs: true,
-    digest: { at: '07:00', timeZone: 'Europe/London' },
-    permissions: NO_CHAT_WRITERS,
-    lotIds: lotIdRule(),
-  }, { now: () => FIXED_NOW, demoHistory: false });
-  if (!started.ok) throw new Error(started.message);
-  return testContext({ lots: started.lots.service });
+  return testContext({ lots: demoLots(() => FIXED_NOW, NO_CHAT_WRITERS, { history: false }).service });
 }
 
 describe('digest', () => {

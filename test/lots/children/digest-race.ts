@@ -7,9 +7,9 @@
 import { corePhysics } from '../../../src/lots/core-physics.js';
 import { lotIdRule } from '../../../src/lots/ids.js';
 import { NO_CHAT_WRITERS } from '../../../src/lots/permissions.js';
-import { DigestScheduler } from '../../../src/lots/scheduler.js';
+import { DigestScheduler } from '../../../src/app/daily-summary.js';
 import { LotService } from '../../../src/lots/service.js';
-import { SqliteLotRepository } from '../../../src/lots/sqlite/repository.js';
+import { SqliteLotRepository } from '../../../src/adapters/storage/sqlite/lots-repository.js';
 import { demoCatalog } from '../harness.js';
 
 const [dbPath, clockIso, startAt, instanceId] = process.argv.slice(2) as [string, string, string, string];

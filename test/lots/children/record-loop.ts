@@ -10,7 +10,7 @@ import { corePhysics } from '../../../src/lots/core-physics.js';
 import { lotIdRule } from '../../../src/lots/ids.js';
 import { NO_CHAT_WRITERS } from '../../../src/lots/permissions.js';
 import { LotService } from '../../../src/lots/service.js';
-import { SqliteLotRepository } from '../../../src/lots/sqlite/repository.js';
+import { SqliteLotRepository } from '../../../src/adapters/storage/sqlite/lots-repository.js';
 import { demoCatalog } from '../harness.js';
 
 const [dbPath, countText] = process.argv.slice(2) as [string, string];

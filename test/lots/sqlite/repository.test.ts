@@ -1,7 +1,7 @@
 /** The SQLite store: migrations at start-up (again is a no-op), data kept across reopening, append-only tables, claim rows. */
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { SqliteLotRepository } from '../../../src/lots/sqlite/repository.js';
+import { SqliteLotRepository } from '../../../src/adapters/storage/sqlite/lots-repository.js';
 import { CONSOLE, makeHarness, rho, tempDir } from '../harness.js';
 
 const tmp = tempDir();

@@ -12,7 +12,8 @@ import { SLACK_ACTION_IDS, SLACK_CHOICE_ACTION } from '../../../render/slack-blo
 import { errorReply } from '../../../reply/build.js';
 import type { ReplyOk } from '../../../reply/reply.js';
 import { ask, eventKeys } from '../conversation.js';
-import { cardFor, isShareable } from '../cards.js';
+import { isShareable } from '../../../reply/kinds.js';
+import { cardFor } from '../cards.js';
 import type { ListenerDeps } from '../deps.js';
 import { parseMessageLink } from '../message-link.js';
 import { postMessage, toResponseUrl } from '../outbound.js';
@@ -87,8 +88,8 @@ export function registerActions(app: App, deps: ListenerDeps): void {
     await ack();
     const value = action.value ?? '';
     const where = actionWhere(body);
-    if (!(await deps.ledger.claim(where.eventKey))) return;
     const asked = await ask(deps, RESULT_ID.test(value) ? `why ${value}` : 'why', where);
+    if (!asked) return; // a duplicate delivery
     const place = body.channel?.id?.startsWith('D') ? 'dm' : 'derivation';
     await toResponseUrl(deps.fetch, body.response_url, cardFor(asked.reply, place), 'add');
     await asked.settle();
@@ -100,8 +101,8 @@ export function registerActions(app: App, deps: ListenerDeps): void {
     const command = (action.value ?? '').trim();
     if (command === '') return;
     const where = actionWhere(body);
-    if (!(await deps.ledger.claim(where.eventKey))) return;
     const asked = await ask(deps, command, where);
+    if (!asked) return; // a duplicate delivery
     const place = body.channel?.id?.startsWith('D') ? 'dm' : 'private';
     await toResponseUrl(deps.fetch, body.response_url, cardFor(asked.reply, place), 'replace');
     await asked.settle();

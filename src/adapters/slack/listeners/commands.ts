@@ -37,16 +37,17 @@ export function registerCommands(app: App, deps: ListenerDeps): void {
       channelId: command.channel_id,
       eventKey: eventKeys.command(command.team_id, command.trigger_id),
     };
-    if (!(await deps.ledger.claim(where.eventKey))) return ack();
     const helpHint = `${deps.slashCommand} help`;
     const pending = ask(deps, commandTextFromSlack(command.text), where);
     const asked = await within(pending, deps.ackDeadlineMs);
+    if (asked === null) return ack(); // a duplicate delivery: answered elsewhere
     if (asked) {
       await ack({ response_type: 'ephemeral', ...cardFor(asked.reply, 'private', { helpHint }) });
       return asked.settle();
     }
     await ack({ response_type: 'ephemeral', text: WORKING });
     const late = await pending;
+    if (!late) return;
     await toResponseUrl(deps.fetch, command.response_url, cardFor(late.reply, 'private', { helpHint }), 'replace');
     return late.settle();
   }

@@ -25,8 +25,8 @@ export function registerEvents(app: App, deps: ListenerDeps): void {
     const m = event as unknown as IncomingMessage;
     if (!m.user) return;
     const where = { teamId: body.team_id, userId: m.user, channelId: m.channel, eventKey: eventKeys.message(body.team_id, m.channel, m.ts) };
-    if (!(await deps.ledger.claim(where.eventKey))) return;
     const asked = await ask(deps, commandTextFromSlack(m.text, context.botUserId), where);
+    if (!asked) return; // a duplicate delivery
     const threadTs = m.thread_ts ?? m.ts;
     const helpHint = '@shiftprobe help';
     if (asked.reply.ok) {
@@ -45,8 +45,8 @@ export function registerEvents(app: App, deps: ListenerDeps): void {
     if (m.channel_type !== 'im' || m.subtype !== undefined || m.bot_id !== undefined || !m.user) return;
     if (m.user === context.botUserId) return;
     const where = { teamId: body.team_id, userId: m.user, channelId: m.channel, eventKey: eventKeys.message(body.team_id, m.channel, m.ts) };
-    if (!(await deps.ledger.claim(where.eventKey))) return;
     const asked = await ask(deps, commandTextFromSlack(m.text, context.botUserId), where);
+    if (!asked) return; // a duplicate delivery
     const sent = await postMessage(client, { channel: m.channel, ...(m.thread_ts ? { threadTs: m.thread_ts } : {}) }, cardFor(asked.reply, 'dm', { helpHint: 'help' }));
     if (!sent.ok) throw Object.assign(new Error(`posting the answer failed: ${sent.code}`), { data: { error: sent.code } });
     await asked.settle();

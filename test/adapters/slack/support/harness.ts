@@ -1,12 +1,14 @@
 /**
- * Starts the real shiftprobe Slack surface (startSlack → Bolt's HTTP receiver on loopback)
+ * Starts the real shiftprobe Slack surface (the composition root's `serve` → Bolt's HTTP receiver on loopback)
  * against the fake Web API, with a fixed clock, predictable result ids, a temporary database
  * and a captured log.
  */
 import { Writable } from 'node:stream';
-import { openServices, type Services } from '../../../../src/app.js';
+import { Application, type Handler } from '../../../../src/app/application.js';
+import type { SlackDeps, SlackRuntime } from '../../../../src/adapters/slack/index.js';
+import { openSqliteBackend } from '../../../../src/adapters/storage/sqlite/backend.js';
 import { loadConfig } from '../../../../src/config.js';
-import { startSlack, type Handler, type SlackDeps, type SlackRuntime } from '../../../../src/adapters/slack/index.js';
+import { serve } from '../../../../src/main.js';
 import type { FakeSlack } from './fake-slack.js';
 
 /** Invented credentials, shaped like real ones (never a real workspace's). */
@@ -19,7 +21,8 @@ export interface TestApp {
   readonly eventsUrl: string;
   readonly port: number;
   readonly runtime: SlackRuntime;
-  readonly services: Services;
+  /** The application layer the surface runs on (its backend, its lots). */
+  readonly app: Application;
   /** Every line the app logged (level debug). */
   readonly logs: string[];
   stop(): Promise<void>;
@@ -59,25 +62,28 @@ export async function startTestApp(options: TestAppOptions): Promise<TestApp> {
   });
   if (!loaded.ok) throw new Error(loaded.problems.map((p) => p.message).join('; '));
   let n = options.firstId ?? 0x100;
-  const services = openServices(loaded.config.base.databasePath, {
+  const storage = loaded.config.storage;
+  if (storage.kind !== 'sqlite') throw new Error('the Slack harness runs on SQLite');
+  const app = await Application.open(openSqliteBackend(storage.path, { now: () => FIXED_NOW }), {
+    lots: loaded.config.lots,
     now: () => FIXED_NOW,
     newId: () => `r-${(n++).toString(16).padStart(6, '0')}`,
+    ...(options.handle ? { handle: options.handle } : {}),
   });
   let stopNow: () => void = () => undefined;
   const stopSignal = new Promise<void>((resolve) => (stopNow = resolve));
   let ready: (info: { port: number; runtime: SlackRuntime }) => void = () => undefined;
   const up = new Promise<{ port: number; runtime: SlackRuntime }>((resolve) => (ready = resolve));
-  const running = startSlack(loaded.config, {
+  const running = serve(loaded.config, {
     io: { stderr },
-    services,
+    app,
     stopSignal,
-    onReady: ready,
-    ...(options.handle ? { handle: options.handle } : {}),
-    overrides: { ...options.overrides, ...(options.ackDeadlineMs !== undefined ? { ackDeadlineMs: options.ackDeadlineMs } : {}) },
+    onReady: (info) => ready({ port: info.port, runtime: info.slack! }),
+    slackOverrides: { ...options.overrides, ...(options.ackDeadlineMs !== undefined ? { ackDeadlineMs: options.ackDeadlineMs } : {}) },
   });
   const started = await Promise.race([
     up,
-    running.then((code) => Promise.reject(Object.assign(new Error(`startSlack exited with ${code}: ${logs.join('\n')}`), { exitCode: code, logs }))),
+    running.then((code) => Promise.reject(Object.assign(new Error(`serve exited with ${code}: ${logs.join('\n')}`), { exitCode: code, logs }))),
   ]);
   const url = `http://127.0.0.1:${started.port}`;
   return {
@@ -85,12 +91,12 @@ export async function startTestApp(options: TestAppOptions): Promise<TestApp> {
     eventsUrl: `${url}/slack/events`,
     port: started.port,
     runtime: started.runtime,
-    services,
+    app,
     logs,
     async stop() {
       stopNow();
       await running;
-      services.close();
+      await app.close();
     },
   };
 }

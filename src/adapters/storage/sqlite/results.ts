@@ -6,8 +6,8 @@
  * event), but saving a different reply under an id already taken throws `ResultIdTakenError`,
  * so an id collision can never make an old card's buttons show someone else's result.
  */
-import { ResultIdTakenError, type ResultStore } from '../commands/context.js';
-import type { ReplyOk } from '../reply/reply.js';
+import { ResultIdTakenError, type ResultStore } from '../../../commands/context.js';
+import type { ReplyOk } from '../../../reply/reply.js';
 import type { Db, Migration } from './db.js';
 
 export const resultStoreMigrations: readonly Migration[] = [
@@ -22,7 +22,7 @@ export const resultStoreMigrations: readonly Migration[] = [
   },
 ];
 
-export { ResultIdTakenError } from '../commands/context.js';
+
 
 export class SqliteResultStore implements ResultStore {
   private readonly insert;

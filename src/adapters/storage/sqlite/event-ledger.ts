@@ -8,7 +8,7 @@ import {
   DEFAULT_RETENTION_MS,
   type EventLedger,
   type LedgerOptions,
-} from './event-ledger.js';
+} from '../../../app/ports.js';
 import type { Db, Migration } from './db.js';
 
 export const eventLedgerMigrations: readonly Migration[] = [

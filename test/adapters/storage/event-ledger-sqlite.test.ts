@@ -4,9 +4,10 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { promisify } from 'node:util';
 import { afterEach, describe, expect, it } from 'vitest';
-import { openDatabase } from '../../src/store/db.js';
-import { MemoryEventLedger, type EventLedger } from '../../src/store/event-ledger.js';
-import { SqliteEventLedger, eventLedgerMigrations } from '../../src/store/event-ledger-sqlite.js';
+import { openDatabase } from '../../../src/adapters/storage/sqlite/db.js';
+import { MemoryEventLedger } from '../../../src/adapters/storage/memory.js';
+import type { EventLedger } from '../../../src/app/ports.js';
+import { SqliteEventLedger, eventLedgerMigrations } from '../../../src/adapters/storage/sqlite/event-ledger.js';
 
 const run = promisify(execFile);
 
@@ -78,8 +79,8 @@ describe('SqliteEventLedger across processes', () => {
     const dir = tempDir();
     const path = join(dir, 'shared.db');
     openDatabase(path, eventLedgerMigrations).close();
-    const ledgerModule = resolve('src/store/event-ledger-sqlite.ts');
-    const dbModule = resolve('src/store/db.ts');
+    const ledgerModule = resolve('src/adapters/storage/sqlite/event-ledger.ts');
+    const dbModule = resolve('src/adapters/storage/sqlite/db.ts');
     const script = join(dir, 'racer.mts');
     writeFileSync(
       script,

@@ -5,8 +5,8 @@
  * reply. A second process on the same file waits on the write lock (busy timeout), so checks
  * never run against a stale lot.
  */
-import { openDatabase, type Db } from '../../store/db.js';
-import type { StoredFlag } from '../flags.js';
+import { openDatabase, type Db } from './db.js';
+import type { StoredFlag } from '../../../lots/flags.js';
 import type {
   ClearOutcome,
   ClearPlan,
@@ -26,10 +26,10 @@ import type {
   ReadingPoint,
   RecordWrite,
   WriteResult,
-} from '../repository.js';
-import type { StoredReading } from '../readings.js';
-import { LOT_MIGRATIONS } from './migrations.js';
-import { digestFromRow, FLAG_SELECT, flagFromRow, readingFromRow, type DigestRow, type FlagRow, type ReadingRow } from './rows.js';
+} from '../../../lots/repository.js';
+import type { StoredReading } from '../../../lots/readings.js';
+import { LOT_MIGRATIONS } from './lots-migrations.js';
+import { digestFromRow, FLAG_SELECT, flagFromRow, readingFromRow, type DigestRow, type FlagRow, type ReadingRow } from '../shared/lot-rows.js';
 
 /** What the event log keeps for a record: ids only, the rows are read back from their tables. */
 interface RecordEventLog {
@@ -133,6 +133,10 @@ export class SqliteLotRepository implements LotRepository {
   /** Open (and migrate) the database file; ':memory:' for tests. */
   static open(path: string): SqliteLotRepository {
     return new SqliteLotRepository(openDatabase(path, LOT_MIGRATIONS));
+  }
+
+  async countLots(): Promise<number> {
+    return this.countLotsSync();
   }
 
   get database(): Db {

@@ -1,8 +1,8 @@
-/** Row ↔ domain mapping for the SQLite lot store. */
-import type { FlagCode, FlagDetail, StoredFlag } from '../flags.js';
-import type { ReadingEvaluation } from '../evaluation-types.js';
-import type { Quantity, StoredReading, Verdict } from '../readings.js';
-import type { DigestRun, DigestStatus } from '../repository.js';
+/** Row ↔ domain mapping for the lot stores (SQLite and PostgreSQL share the column names). */
+import type { FlagCode, FlagDetail, StoredFlag } from '../../../lots/flags.js';
+import type { ReadingEvaluation } from '../../../lots/evaluation-types.js';
+import type { Quantity, StoredReading, Verdict } from '../../../lots/readings.js';
+import type { DigestRun, DigestStatus } from '../../../lots/repository.js';
 
 export interface ReadingRow {
   id: number;

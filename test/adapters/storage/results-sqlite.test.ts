@@ -2,9 +2,10 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
-import { openDatabase } from '../../src/store/db.js';
-import { ResultIdTakenError, SqliteResultStore, resultStoreMigrations } from '../../src/store/results-sqlite.js';
-import type { ReplyOk } from '../../src/reply/reply.js';
+import { openDatabase } from '../../../src/adapters/storage/sqlite/db.js';
+import { ResultIdTakenError } from '../../../src/commands/context.js';
+import { SqliteResultStore, resultStoreMigrations } from '../../../src/adapters/storage/sqlite/results.js';
+import type { ReplyOk } from '../../../src/reply/reply.js';
 
 function reply(id: string, title = 'Resistivity → boron density'): ReplyOk {
   return {

@@ -4,7 +4,7 @@
  * refuse UPDATE and DELETE, so no code path can overwrite a recorded value. Only the digest
  * claim rows change state (claimed → posted | failed).
  */
-import type { Migration } from '../../store/db.js';
+import type { Migration } from './db.js';
 
 const appendOnly = (table: string): string => `
 CREATE TRIGGER ${table}_no_update BEFORE UPDATE ON ${table}

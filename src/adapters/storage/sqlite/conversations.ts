@@ -1,5 +1,5 @@
 /** ConversationMemory in the embedded database (see conversations.ts). */
-import type { ConversationMemory, KnownThread } from './conversations.js';
+import { THREADS_KEPT_PER_CHANNEL, type ConversationMemory, type KnownThread } from '../../../app/ports.js';
 import type { Db, Migration } from './db.js';
 
 export const conversationMigrations: readonly Migration[] = [
@@ -21,8 +21,6 @@ export const conversationMigrations: readonly Migration[] = [
   },
 ];
 
-/** Threads kept per channel; older ones are dropped as new ones arrive. */
-const THREADS_KEPT_PER_CHANNEL = 50;
 
 export class SqliteConversationMemory implements ConversationMemory {
   private readonly getLast;

@@ -1,0 +1,196 @@
+/**
+ * The application layer: what every surface (console, CLI, Slack, HTTP, Teams) shares, above the
+ * commands and below the adapters.
+ *
+ * - `ask`: one question, once. Claims the event (a duplicate delivery does nothing), loads the
+ *   conversation's memory, runs the command, keeps `why` answers (results are kept by `handle`)
+ *   so their cards can be shared, and — once the surface has sent the answer — remembers the
+ *   conversation's last result and completes the event.
+ * - `contextFor`: the HandleContext of one request.
+ * - `dailySummary`: the one daily job, handing the summary to each surface's notifier.
+ *
+ * Built on a StorageBackend (src/app/ports.ts) by the composition root (src/main.ts); nothing
+ * here knows which database or which chat service is behind it.
+ */
+import { randomBytes } from 'node:crypto';
+import { hostname } from 'node:os';
+import type { Caller, FailureLog, HandleContext, PendingChoice, Surface } from '../commands/context.js';
+import { handle as defaultHandle } from '../commands/handle.js';
+import type { LotsConfig } from '../lots/config.js';
+import { startLots, type LotsOptions, type LotsRuntime } from '../lots/runtime.js';
+import { isShareable, isResult } from '../reply/kinds.js';
+import type { Reply } from '../reply/reply.js';
+import { DailySummaryJob, type DailySummaryDeps, type SummaryNotifier } from './daily-summary.js';
+import type { StorageBackend } from './ports.js';
+
+/** `handle` from src/commands/handle.ts, or any function of the same shape (tests). */
+export type Handler = (text: string, ctx: HandleContext) => Promise<Reply>;
+
+/** A problem that stops start-up (a bad spec file, a bad database), with the message to print. */
+export class StartupError extends Error {
+  constructor(message: string, options?: { cause?: unknown }) {
+    super(message, options);
+    this.name = 'StartupError';
+  }
+}
+
+/**
+ * Result ids: 'r-' and 8 random hex digits, short enough to type into `why`; a clash with an
+ * older result (likely only after tens of thousands) is caught by the store and re-drawn.
+ */
+export function randomResultId(): string {
+  return `r-${randomBytes(4).toString('hex')}`;
+}
+
+/** In-process conversation state a surface may hold (the console): the pending question's answers. */
+export interface Session {
+  lastResultId?: string;
+  pendingChoices?: readonly PendingChoice[] | undefined;
+}
+
+export interface Question {
+  readonly text: string;
+  readonly surface: Surface;
+  readonly caller: Caller;
+  /** The chat event's exactly-once key; absent on the console and the CLI. */
+  readonly eventKey?: string;
+  /**
+   * Whose conversation this is, for a bare `why` across restarts and instances
+   * ('slack:T1:C1:U1'); absent: only `session` remembers.
+   */
+  readonly conversationKey?: string;
+  /** In-process session (the console keeps one for its whole run). */
+  readonly session?: Session;
+  /** Where this surface logs failures. */
+  readonly log?: FailureLog;
+}
+
+export type Asked =
+  | { readonly duplicate: true }
+  | {
+      readonly duplicate: false;
+      readonly reply: Reply;
+      /** After the answer is out: remember the conversation's last result and complete the event. */
+      settle(): Promise<void>;
+      /** The answer could not be sent and nothing was stored: let a redelivery try again. */
+      abandon(): Promise<void>;
+    };
+
+export interface ApplicationOptions {
+  readonly lots?: LotsConfig;
+  readonly lotsOptions?: LotsOptions;
+  readonly now?: () => Date;
+  readonly newId?: () => string;
+  readonly handle?: Handler;
+  /** Names this process in claim rows (default host:pid). */
+  readonly instanceId?: string;
+}
+
+export class Application {
+  readonly now: () => Date;
+  readonly newId: () => string;
+  readonly instanceId: string;
+  private readonly handler: Handler;
+
+  private constructor(
+    readonly backend: StorageBackend,
+    readonly lots: LotsRuntime | undefined,
+    options: ApplicationOptions,
+  ) {
+    this.now = options.now ?? (() => new Date());
+    this.newId = options.newId ?? randomResultId;
+    this.handler = options.handle ?? defaultHandle;
+    this.instanceId = options.instanceId ?? `${hostname()}:${process.pid}`;
+  }
+
+  /** Build the application on an open backend; a bad spec file is a StartupError. */
+  static async open(backend: StorageBackend, options: ApplicationOptions = {}): Promise<Application> {
+    let lots: LotsRuntime | undefined;
+    if (options.lots) {
+      const started = await startLots(backend.lots, options.lots, { ...(options.now ? { now: options.now } : {}), ...options.lotsOptions });
+      if (!started.ok) throw new StartupError(started.message);
+      lots = started.lots;
+    }
+    return new Application(backend, lots, options);
+  }
+
+  get results() {
+    return this.backend.results;
+  }
+
+  get conversations() {
+    return this.backend.conversations;
+  }
+
+  get ledger() {
+    return this.backend.ledger;
+  }
+
+  /** The HandleContext of one request. */
+  contextFor(surface: Surface, caller: Caller, session: Session, eventId?: string, log?: FailureLog): HandleContext {
+    return {
+      surface,
+      caller,
+      now: this.now,
+      newId: this.newId,
+      results: this.backend.results,
+      session,
+      ...(eventId ? { eventId } : {}),
+      ...(log ? { log } : {}),
+      ...(this.lots ? { lots: this.lots.service } : {}),
+    };
+  }
+
+  /** One question, once (see the file comment). */
+  async ask(q: Question): Promise<Asked> {
+    if (q.eventKey !== undefined && !(await this.backend.ledger.claim(q.eventKey))) return { duplicate: true };
+    const session: Session = q.session ?? {};
+    const before = q.conversationKey !== undefined ? await this.backend.conversations.lastResult(q.conversationKey) : session.lastResultId;
+    if (before !== undefined) session.lastResultId = before;
+    const ctx = this.contextFor(q.surface, q.caller, session, q.eventKey, q.log);
+    const reply = await this.handler(q.text, ctx);
+    // `handle` keeps results; a `why` answer is kept here so its card's buttons work too.
+    if (isShareable(reply) && !isResult(reply)) await this.backend.results.save(reply);
+    return {
+      duplicate: false,
+      reply,
+      settle: async () => {
+        if (q.conversationKey !== undefined && session.lastResultId && session.lastResultId !== before) {
+          await this.backend.conversations.setLastResult(q.conversationKey, session.lastResultId);
+        }
+        if (q.eventKey !== undefined) await this.backend.ledger.complete(q.eventKey);
+      },
+      abandon: async () => {
+        if (q.eventKey !== undefined) await this.backend.ledger.release(q.eventKey);
+      },
+    };
+  }
+
+  /**
+   * The daily summary to every notifier (none: undefined). Started by the composition root once
+   * the surfaces are up.
+   */
+  dailySummary(
+    notifiers: readonly SummaryNotifier[],
+    options: { onError?: DailySummaryDeps['onError']; timing?: DailySummaryDeps['timing'] } = {},
+  ): DailySummaryJob | undefined {
+    if (!this.lots || notifiers.length === 0) return undefined;
+    return new DailySummaryJob({
+      service: this.lots.service,
+      repo: this.lots.repo,
+      results: this.backend.results,
+      at: this.lots.config.digest.at,
+      timeZone: this.lots.config.digest.timeZone,
+      now: this.now,
+      newId: this.newId,
+      demo: this.lots.catalog.demo,
+      instanceId: this.instanceId,
+      notifiers,
+      ...options,
+    });
+  }
+
+  async close(): Promise<void> {
+    await this.backend.close();
+  }
+}
