@@ -1,6 +1,7 @@
 /**
- * Test wiring for the lot domain: an in-memory (or temporary-file) SQLite store, the demo specs,
- * the real physics core, a clock the test moves by hand, and numbered event ids.
+ * Test wiring for the lot domain: a store (in-memory or temporary-file SQLite, or a fresh
+ * database on the throw-away PostgreSQL server), the demo specs, the real physics core, a clock
+ * the test moves by hand, and numbered event ids.
  */
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -14,6 +15,8 @@ import { LotService } from '../../src/lots/service.js';
 import { loadSpecFile } from '../../src/lots/spec/load.js';
 import type { SpecCatalog } from '../../src/lots/spec/schema.js';
 import { SqliteLotRepository } from '../../src/adapters/storage/sqlite/lots-repository.js';
+import type { LotRepository } from '../../src/lots/repository.js';
+import { freshPostgresBackend } from '../support/postgres.js';
 
 export function demoCatalog(): SpecCatalog {
   const load = loadSpecFile(DEMO_SPEC_FILE, { demo: true });
@@ -21,25 +24,43 @@ export function demoCatalog(): SpecCatalog {
   return load.catalog;
 }
 
-export interface Harness {
-  readonly repo: SqliteLotRepository;
+export interface Harness<R extends LotRepository = SqliteLotRepository> {
+  readonly repo: R;
   readonly service: LotService;
   readonly clock: { now: Date; set(iso: string): void; advance(ms: number): void };
   close(): Promise<void>;
 }
 
-export function makeHarness(
-  options: {
-    path?: string;
-    timeZone?: string;
-    digestAt?: string;
-    channel?: string;
-    permissions?: Permissions;
-    start?: string;
-    catalog?: SpecCatalog;
-  } = {},
-): Harness {
-  const repo = SqliteLotRepository.open(options.path ?? ':memory:');
+export interface HarnessOptions {
+  path?: string;
+  timeZone?: string;
+  digestAt?: string;
+  channel?: string;
+  permissions?: Permissions;
+  start?: string;
+  catalog?: SpecCatalog;
+}
+
+export function makeHarness(options: HarnessOptions = {}): Harness {
+  return harnessOn(SqliteLotRepository.open(options.path ?? ':memory:'), options, (repo) => repo.close());
+}
+
+/** The backends the shared suites run on: one suite, two drivers. */
+export const DRIVERS = ['sqlite', 'postgres'] as const;
+export type Driver = (typeof DRIVERS)[number];
+
+/** A harness on either backend, with `exec` to run raw SQL (to prove the database refuses changes). */
+export async function openHarness(driver: Driver, options: HarnessOptions = {}): Promise<Harness<LotRepository> & { exec(sql: string): Promise<void> }> {
+  if (driver === 'sqlite') {
+    const h = makeHarness(options);
+    return { ...h, exec: async (sql) => void h.repo.database.prepare(sql).run() };
+  }
+  const backend = await freshPostgresBackend();
+  const h = harnessOn(backend.lots, options, () => backend.close());
+  return { ...h, exec: async (sql) => void (await backend.pool.query(sql)) };
+}
+
+function harnessOn<R extends LotRepository>(repo: R, options: HarnessOptions, close: (repo: R) => Promise<void>): Harness<R> {
   const clock = {
     now: new Date(options.start ?? '2025-06-10T09:00:00Z'),
     set(iso: string) {
@@ -62,7 +83,7 @@ export function makeHarness(
     newEventId: () => `test-${++n}`,
     digest: { channel: options.channel ?? 'console', at: options.digestAt ?? '07:00' },
   });
-  return { repo, service, clock, close: () => repo.close() };
+  return { repo, service, clock, close: () => close(repo) };
 }
 
 export const CONSOLE: Actor = { userId: 'console', userName: 'Priya Okonkwo-Hale', surface: 'console', channelId: 'console' };
