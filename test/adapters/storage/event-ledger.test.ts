@@ -7,6 +7,7 @@ import { afterEach, describe, expect, it } from 'vitest';
 import { openDatabase } from '../../../src/adapters/storage/sqlite/db.js';
 import { MemoryEventLedger } from '../../../src/adapters/storage/memory.js';
 import type { EventLedger } from '../../../src/app/ports.js';
+import { freshPostgresBackend } from '../../support/postgres.js';
 import { SqliteEventLedger, eventLedgerMigrations } from '../../../src/adapters/storage/sqlite/event-ledger.js';
 
 const run = promisify(execFile);
@@ -27,14 +28,15 @@ function manualClock(start = Date.parse('2031-03-04T05:00:00Z')) {
   return { now: () => new Date(t), advance: (ms: number) => (t += ms) };
 }
 
-const kinds: [string, (now: () => Date) => EventLedger][] = [
-  ['memory', (now) => new MemoryEventLedger({ now })],
-  ['sqlite', (now) => new SqliteEventLedger(openDatabase(':memory:', eventLedgerMigrations), { now })],
+const kinds: [string, (now: () => Date) => Promise<EventLedger>][] = [
+  ['memory', async (now) => new MemoryEventLedger({ now })],
+  ['sqlite', async (now) => new SqliteEventLedger(openDatabase(':memory:', eventLedgerMigrations), { now })],
+  ['postgres', async (now) => (await freshPostgresBackend({ now })).ledger],
 ];
 
 describe.each(kinds)('%s event ledger', (_name, make) => {
   it('lets the first delivery through and stops the duplicates', async () => {
-    const ledger = make(manualClock().now);
+    const ledger = await make(manualClock().now);
     expect(await ledger.claim('slack:ev:Ev01')).toBe(true);
     expect(await ledger.claim('slack:ev:Ev01')).toBe(false);
     expect(await ledger.claim('slack:ev:Ev01')).toBe(false);
@@ -43,7 +45,7 @@ describe.each(kinds)('%s event ledger', (_name, make) => {
 
   it('lets a later delivery take over a claim whose holder never finished (lease 30 s)', async () => {
     const clock = manualClock();
-    const ledger = make(clock.now);
+    const ledger = await make(clock.now);
     expect(await ledger.claim('k')).toBe(true);
     clock.advance(29_000);
     expect(await ledger.claim('k')).toBe(false);
@@ -53,7 +55,7 @@ describe.each(kinds)('%s event ledger', (_name, make) => {
 
   it('never hands out a completed event again', async () => {
     const clock = manualClock();
-    const ledger = make(clock.now);
+    const ledger = await make(clock.now);
     expect(await ledger.claim('k')).toBe(true);
     await ledger.complete('k');
     clock.advance(10 * 60_000);
@@ -102,7 +104,7 @@ describe('SqliteEventLedger across processes', () => {
 
 describe.each(kinds)('%s event ledger release', (_name, make) => {
   it('a released claim can be taken again at once, a completed one cannot be released', async () => {
-    const ledger = make(manualClock().now);
+    const ledger = await make(manualClock().now);
     expect(await ledger.claim('share:r-000001:C1:-')).toBe(true);
     await ledger.release('share:r-000001:C1:-');
     expect(await ledger.claim('share:r-000001:C1:-')).toBe(true);

@@ -6,6 +6,8 @@ import { openDatabase } from '../../../src/adapters/storage/sqlite/db.js';
 import { ResultIdTakenError } from '../../../src/commands/context.js';
 import { SqliteResultStore, resultStoreMigrations } from '../../../src/adapters/storage/sqlite/results.js';
 import type { ReplyOk } from '../../../src/reply/reply.js';
+import type { ResultStore } from '../../../src/commands/context.js';
+import { freshPostgresBackend } from '../../support/postgres.js';
 
 function reply(id: string, title = 'Resistivity → boron density'): ReplyOk {
   return {
@@ -47,14 +49,22 @@ describe('SqliteResultStore', () => {
     second.close();
   });
 
+});
+
+const stores: [string, () => Promise<ResultStore>][] = [
+  ['sqlite', async () => new SqliteResultStore(openDatabase(':memory:', resultStoreMigrations))],
+  ['postgres', async () => (await freshPostgresBackend()).results],
+];
+
+describe.each(stores)('%s result store', (_name, make) => {
   it('saving the same reply twice is harmless (a retried event)', async () => {
-    const store = new SqliteResultStore(openDatabase(':memory:', resultStoreMigrations));
+    const store = await make();
     await store.save(reply('r-000001'));
     await expect(store.save(reply('r-000001'))).resolves.toBeUndefined();
   });
 
   it('refuses a different reply under an id already taken, keeping the first', async () => {
-    const store = new SqliteResultStore(openDatabase(':memory:', resultStoreMigrations));
+    const store = await make();
     await store.save(reply('r-000002'));
     await expect(store.save(reply('r-000002', 'Something else'))).rejects.toBeInstanceOf(ResultIdTakenError);
     expect((await store.get('r-000002'))?.title).toBe('Resistivity → boron density');
