@@ -60,7 +60,14 @@ export function parseSpecText(text: string, source: string, options: { demo?: bo
       }),
     };
   }
-  const data: unknown = doc.toJS();
+  let data: unknown;
+  try {
+    // The parser refuses a document whose aliases expand without bound (a "billion laughs").
+    data = doc.toJS({ maxAliasCount: 100 });
+  } catch (e) {
+    const why = e instanceof ReferenceError && /alias/i.test(e.message) ? 'uses YAML aliases (*name) so often that it would expand without bound; write the products out in full' : `cannot be read as YAML data (${e instanceof Error ? e.name : 'error'})`;
+    return { ok: false, source, problems: [{ field: '', message: why }] };
+  }
   const parsed = SpecFile.safeParse(data ?? {});
   if (!parsed.success) {
     return {

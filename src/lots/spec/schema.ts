@@ -14,6 +14,7 @@
  * Either `resistivityOhmCm` or `dopantDensityPerCm3` is the window (not both).
  */
 import { z } from 'zod';
+import { CONVERSION_MODELS, findConversionModel } from '../../physics/resistivity/registry.js';
 import { DOPANT_TYPE, type Dopant } from '../../physics/types.js';
 
 const positive = z.number().finite().positive();
@@ -71,6 +72,18 @@ export const ProductSpec = z
         message: 'give one window, resistivityOhmCm or dopantDensityPerCm3, not both',
         path: ['dopantDensityPerCm3'],
       });
+    }
+    if (p.model !== undefined) {
+      // A misspelt model id would make every conversion of the product fail and flag every
+      // reading: refuse it at start with the ids that work for the dopant.
+      const model = findConversionModel(p.model);
+      const covers = (m: (typeof CONVERSION_MODELS)[number]) => m.domain[p.dopant] !== undefined || m.delegates?.[p.dopant] !== undefined;
+      const covering = CONVERSION_MODELS.filter(covers).map((m) => m.id);
+      if (!model) {
+        ctx.addIssue({ code: 'custom', message: `unknown model "${p.model}"; for ${p.dopant} use one of: ${covering.join(', ')}`, path: ['model'] });
+      } else if (!covers(model)) {
+        ctx.addIssue({ code: 'custom', message: `model ${model.id} does not cover ${p.dopant}; use one of: ${covering.join(', ')}`, path: ['model'] });
+      }
     }
     if (DOPANT_TYPE[p.dopant] !== p.type) {
       ctx.addIssue({

@@ -11,7 +11,7 @@
  * journal mode).
  */
 import Database from 'better-sqlite3';
-import { closeSync, existsSync, mkdirSync, openSync, readSync, statSync } from 'node:fs';
+import { accessSync, closeSync, constants, existsSync, mkdirSync, openSync, readSync, statSync } from 'node:fs';
 import { dirname } from 'node:path';
 import { StorageError } from '../../../app/ports.js';
 
@@ -38,6 +38,13 @@ function codeOf(e: unknown): string {
   return typeof e === 'object' && e !== null && 'code' in e ? String((e as { code: unknown }).code) : '';
 }
 
+function unwritable(path: string, e: unknown): never {
+  const code = codeOf(e);
+  if (code === 'EROFS') refuse(path, 'is on a read-only file system', `Point ${SETTING} at a writable place (the service needs to write readings).`, e);
+  if (code === 'EACCES' || code === 'EPERM') refuse(path, 'may not be written by this user', `Give the service user write access to it and its folder, or point ${SETTING} elsewhere.`, e);
+  refuse(path, `cannot be written (${code || 'unknown error'})`, FIX_PATH, e);
+}
+
 /** Checks that need no SQLite: the path, its folder, the file's header and length. */
 function preflight(path: string): void {
   let stat;
@@ -58,9 +65,20 @@ function preflight(path: string): void {
       if (code === 'EACCES' || code === 'EPERM') refuse(path, 'is in a folder shiftprobe may not create or write', `Give the service user write access to ${dirname(path)}, or point ${SETTING} elsewhere.`, e);
       refuse(path, `cannot be created (${code || 'unknown error'})`, FIX_PATH, e);
     }
+    try {
+      closeSync(openSync(path, 'wx')); // an empty file: SQLite makes it a database
+    } catch (e) {
+      unwritable(path, e);
+    }
     return;
   }
   if (!stat.isFile()) refuse(path, 'is not a regular file', FIX_PATH);
+  try {
+    accessSync(path, constants.R_OK | constants.W_OK);
+    accessSync(dirname(path), constants.W_OK); // the WAL and shared-memory files go beside it
+  } catch (e) {
+    unwritable(path, e);
+  }
   if (stat.size === 0) return; // an empty file becomes a new database
   const head = Buffer.alloc(100);
   const fd = openSync(path, 'r');
