@@ -91,7 +91,8 @@ async function main(): Promise<void> {
     if (i % 5 === 4) {
       recordEvents += 1;
       const ts = `1931000000.${String(i).padStart(6, '0')}`;
-      const text = `<@U0SHIFTBOT> record LOT-A21 w${(i % 25) + 1} site ${(i % 400) + 1} rho ${(9.2 + (i % 9) * 0.1).toFixed(1)} ohm-cm`;
+      // Many lots in flight, as on a shift: 40 lots, 25 wafers each.
+      const text = `<@U0SHIFTBOT> record LOT-K${100 + (i % 40)} w${(Math.floor(i / 40) % 25) + 1} site ${(Math.floor(i / 1000) % 49) + 1} rho ${(9.2 + (i % 9) * 0.1).toFixed(1)} ohm-cm product HX-200P`;
       const body = eventCallbackBody({ type: 'app_mention', user: 'U0PRIYA', text, ts, channel: 'C0ETCHBAY', event_ts: ts }, `EvBench${i}`);
       pending.push(Promise.all([send(first, body, JSON_TYPE), send(second, body, JSON_TYPE)]).then(() => undefined));
     } else {
@@ -109,13 +110,19 @@ async function main(): Promise<void> {
   }
   const sent = performance.now() - start;
   await Promise.all(pending);
-  // Answers that went out late, through the response URL, count as answered.
-  await new Promise((r) => setTimeout(r, 3000));
+  // Mentions are acknowledged first and answered after: wait until every answer is out (or a
+  // minute has passed), and say how long the backlog took to clear.
+  const answeredMentions = () => fake.callsTo('chat.postMessage').filter((c) => c.params['channel'] === 'C0ETCHBAY').length + fake.callsTo('chat.postEphemeral').length;
+  const drainStart = performance.now();
+  while (answeredMentions() < recordEvents && performance.now() - drainStart < 60_000) await new Promise((r) => setTimeout(r, 50));
+  await new Promise((r) => setTimeout(r, 1000));
+  const drainMs = performance.now() - drainStart;
   const lateAnswers = fake.responsePosts.filter((p) => p.id.startsWith('bench-')).length;
   const posts = fake.callsTo('chat.postMessage').filter((c) => c.params['channel'] === 'C0ETCHBAY').length;
   const check = await openPostgresBackend(postgresConfig(url));
   const stored = (await check.pool.query<{ n: number; events: number }>("SELECT count(*)::integer AS n, count(DISTINCT event_id)::integer AS events FROM lot_readings WHERE event_id LIKE 'slack:message:%'")).rows[0]!;
   await check.close();
+  const instanceErrors = instances.flatMap((x) => x.log.filter((l) => /ERROR|error/.test(l)));
   await Promise.all(instances.map((x) => x.stop()));
   await fake.stop();
   pg.stop();
@@ -126,8 +133,10 @@ async function main(): Promise<void> {
   console.log(`ack latency (ms): p50 ${f(quantile(s, 0.5))}  p90 ${f(quantile(s, 0.9))}  p99 ${f(quantile(s, 0.99))}  max ${f(s.at(-1) ?? NaN)}  (${s.length} requests)`);
   console.log(`errors: ${errors}${errorKinds.size ? ' (' + [...errorKinds].map(([k, v]) => `${k}: ${v}`).join(', ') + ')' : ''}`);
   console.log(`slash commands: ${slashEvents} events, ${slashAnsweredOnce + lateAnswers} answered (${lateAnswers} late through the response URL)`);
+  console.log(`backlog after the last request: answers still going out for ${(drainMs / 1000).toFixed(1)} s`);
+  console.log(`errors logged by the instances: ${instanceErrors.length}${instanceErrors.length ? '\n  ' + instanceErrors.slice(0, 5).join('\n  ') : ''}`);
   console.log(`records: ${recordEvents} events, ${stored.n} readings stored (${stored.events} distinct events), ${posts} answers posted`);
-  const ok = errors === 0 && stored.n === recordEvents && stored.events === recordEvents && posts === recordEvents && slashAnsweredOnce + lateAnswers === slashEvents;
+  const ok = errors === 0 && instanceErrors.length === 0 && stored.n === recordEvents && stored.events === recordEvents && posts === recordEvents && slashAnsweredOnce + lateAnswers === slashEvents;
   console.log(ok ? 'exactly once: yes' : 'exactly once: NO');
   process.exitCode = ok ? 0 : 1;
 }
