@@ -15,6 +15,7 @@ import Database from 'better-sqlite3';
 import { afterAll, describe, expect, it } from 'vitest';
 import { loadConfig } from '../src/config.js';
 import { serve } from '../src/main.js';
+import { postgresServerUrl } from './support/postgres.js';
 
 const run = promisify(execFile);
 const tmp = mkdtempSync(join(tmpdir(), 'shiftprobe-startup-'));
@@ -98,6 +99,22 @@ describe('a bad DATABASE_PATH', () => {
     } finally {
       if (mounted) spawnSync('umount', [mountPoint]);
     }
+  }, 30_000);
+});
+
+describe('a bad DATABASE_URL', () => {
+  it('a refused password: exit 78, the setting named, the password never printed', async () => {
+    const u = new URL(postgresServerUrl());
+    u.password = 'not-the-password-31';
+    const r = await cli({ DATABASE_URL: u.toString() }, 'ni 300K');
+    expectClear(r, 'DATABASE_URL', /refused the user name or password/);
+    expect(r.stderr).not.toContain('not-the-password-31');
+    expect(r.stderr).toContain('***');
+  }, 30_000);
+
+  it('not a PostgreSQL URL at all', async () => {
+    const r = await cli({ DATABASE_URL: 'mysql://fab3@db/shiftprobe' }, 'ni 300K');
+    expectClear(r, 'DATABASE_URL', /must be a PostgreSQL URL/);
   }, 30_000);
 });
 
