@@ -123,7 +123,7 @@ export function readEnvironment(options: { cwd?: string; file?: string; env?: En
   return { ...fromFile, ...(options.env ?? process.env) };
 }
 
-/** Whether a start-up should open Slack or the local console. */
+/** Whether a start-up opens the chat surfaces or the local console (see `hasChatSurface` in main.ts). */
 export function surfaceOf(config: Config): 'slack' | 'console' {
   return config.slack === undefined ? 'console' : 'slack';
 }

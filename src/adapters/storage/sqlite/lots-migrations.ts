@@ -1,5 +1,5 @@
 /**
- * Schema of the lot records in SQLite, as migrations for `openDatabase` (src/store/db.ts).
+ * Schema of the lot records in SQLite, as migrations for `openDatabase` (./db.ts); the PostgreSQL schema is ../postgres/schema.ts.
  * Readings, product assignments, flags, clearances and the event log are append-only: triggers
  * refuse UPDATE and DELETE, so no code path can overwrite a recorded value. Only the digest
  * claim rows change state (claimed → posted | failed).
