@@ -15,6 +15,7 @@ import { existsSync, readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { parse as parseDotenv } from 'dotenv';
 import { z } from 'zod';
+import { HttpApiEnv } from './adapters/http/config.js';
 import { SlackEnv } from './adapters/slack/config.js';
 import { StorageEnv } from './adapters/storage/config.js';
 import { LotsEnv } from './lots/config.js';
@@ -52,6 +53,7 @@ export const configSections = {
   base: BaseEnv,
   storage: StorageEnv,
   slack: SlackEnv,
+  httpApi: HttpApiEnv,
   lots: LotsEnv,
 } as const;
 

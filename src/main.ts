@@ -64,7 +64,7 @@ export async function main(argv: readonly string[], io: MainIo = process as unkn
 
 /** Whether any chat surface is configured (otherwise the local console runs). */
 export function hasChatSurface(config: Config): boolean {
-  return config.slack !== undefined;
+  return config.slack !== undefined || config.httpApi !== undefined;
 }
 
 /**
@@ -155,7 +155,14 @@ export interface ServeDeps {
   /** Replaces parts of the Slack adapter's dependencies (tests: deadlines, fetch). */
   readonly slackOverrides?: Partial<SlackDeps>;
   /** Told once every surface is up (tests, the benchmarks). */
-  readonly onReady?: (info: { readonly port: number; readonly app: Application; readonly slack?: SlackRuntime; readonly daily?: DailySummaryJob }) => void;
+  readonly onReady?: (info: {
+    readonly port: number;
+    readonly app: Application;
+    readonly slack?: SlackRuntime;
+    readonly daily?: DailySummaryJob;
+    /** Each started surface's port, by name ('slack', 'http'). */
+    readonly ports: Readonly<Record<string, number>>;
+  }) => void;
 }
 
 function untilSignal(): Promise<string> {
@@ -206,20 +213,26 @@ export async function serve(config: Config, deps: ServeDeps): Promise<number> {
     slack = s.runtime;
     surfaces.push(s);
   }
+  if (config.httpApi) {
+    const { httpApiSurface } = await import('./adapters/http/index.js');
+    surfaces.push(httpApiSurface(app, { config: config.httpApi, host: config.base.host, log: logger }));
+  }
   const started: Surface[] = [];
   let daily: DailySummaryJob | undefined;
   try {
     let port = 0;
+    const ports: Record<string, number> = {};
     for (const s of surfaces) {
       const up = await s.start();
       started.push(s);
       if (up.port !== undefined && port === 0) port = up.port;
+      if (up.port !== undefined) ports[s.name] = up.port;
       logger.info(`shiftprobe is answering on ${up.description}`);
     }
     const notifiers = started.map((s) => s.summaryNotifier()).filter((n) => n !== undefined);
     daily = app.dailySummary(notifiers, { onError: (e, context) => logger.error(`shiftprobe: ${context} could not be posted:`, e) });
     await daily?.start();
-    deps.onReady?.({ port, app, ...(slack ? { slack } : {}), ...(daily ? { daily } : {}) });
+    deps.onReady?.({ port, ports, app, ...(slack ? { slack } : {}), ...(daily ? { daily } : {}) });
     await (deps.stopSignal ?? untilSignal());
     return 0;
   } catch (error) {

@@ -16,6 +16,9 @@ import { randomBytes } from 'node:crypto';
 import { hostname } from 'node:os';
 import type { Caller, FailureLog, HandleContext, PendingChoice, Surface } from '../commands/context.js';
 import { handle as defaultHandle } from '../commands/handle.js';
+import { recordCommand } from '../commands/lots/record.js';
+import { RecordRequest } from '../lots/readings.js';
+import { errorReply } from '../reply/build.js';
 import type { LotsConfig } from '../lots/config.js';
 import { startLots, type LotsOptions, type LotsRuntime } from '../lots/runtime.js';
 import { isShareable, isResult } from '../reply/kinds.js';
@@ -54,6 +57,11 @@ export interface Question {
   readonly caller: Caller;
   /** The chat event's exactly-once key; absent on the console and the CLI. */
   readonly eventKey?: string;
+  /**
+   * A key that makes side effects idempotent without claiming the question (the HTTP API's
+   * Idempotency-Key): a retried `record` gets the first outcome again instead of nothing.
+   */
+  readonly effectKey?: string;
   /**
    * Whose conversation this is, for a bare `why` across restarts and instances
    * ('slack:T1:C1:U1'); absent: only `session` remembers.
@@ -147,7 +155,7 @@ export class Application {
     const session: Session = q.session ?? {};
     const before = q.conversationKey !== undefined ? await this.backend.conversations.lastResult(q.conversationKey) : session.lastResultId;
     if (before !== undefined) session.lastResultId = before;
-    const ctx = this.contextFor(q.surface, q.caller, session, q.eventKey, q.log);
+    const ctx = this.contextFor(q.surface, q.caller, session, q.eventKey ?? q.effectKey, q.log);
     const reply = await this.handler(q.text, ctx);
     // `handle` keeps results; a `why` answer is kept here so its card's buttons work too.
     if (isShareable(reply) && !isResult(reply)) await this.backend.results.save(reply);
@@ -164,6 +172,33 @@ export class Application {
         if (q.eventKey !== undefined) await this.backend.ledger.release(q.eventKey);
       },
     };
+  }
+
+  /**
+   * A reading recorded from typed fields (the HTTP API's /v1/readings) — the same checks, flags,
+   * confirmation rule, reply and kept result as the `record` command. `confirm`: store a reading
+   * far outside its window without asking.
+   */
+  async recordTyped(
+    fields: unknown,
+    q: Omit<Question, 'text' | 'eventKey' | 'conversationKey' | 'session'> & { readonly confirm?: boolean },
+  ): Promise<Reply> {
+    const request = RecordRequest.safeParse(fields, { reportInput: false });
+    if (!request.success) {
+      return errorReply('invalid_request', request.error.issues.map((i) => `${i.path.join('.') || 'body'}: ${i.message}`).join('; '));
+    }
+    const ctx = this.contextFor(q.surface, q.caller, {}, q.effectKey, q.log);
+    try {
+      const reply = await recordCommand.run(
+        { record: request.data, confirmed: q.confirm === true, commandText: `record ${request.data.lotId}`, bareNumber: false, asTyped: {} },
+        ctx,
+      );
+      if (isResult(reply)) await this.backend.results.save(reply);
+      return reply;
+    } catch (e) {
+      (q.log ?? { error: (...a: unknown[]) => process.stderr.write(`${a.map(String).join(' ')}\n`) }).error({ err: e, surface: q.surface, user: q.caller.userId }, 'shiftprobe: a typed record failed');
+      return errorReply('internal', 'Something went wrong on our side while storing that; whether it was stored is uncertain: check the lot before sending it again (or resend with the same Idempotency-Key). The cause has been logged.');
+    }
   }
 
   /**

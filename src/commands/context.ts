@@ -5,7 +5,7 @@
 import type { LotService } from '../lots/service.js';
 import type { ReplyOk } from '../reply/reply.js';
 
-export type Surface = 'console' | 'cli' | 'slack' | 'teams';
+export type Surface = 'console' | 'cli' | 'slack' | 'teams' | 'http';
 
 /** A store refuses to save a different reply under an id already taken (the caller picks another id). */
 export class ResultIdTakenError extends Error {

@@ -26,7 +26,8 @@ import { CLOCK_TIME, isValidTimeZone } from './time.js';
 /** The invented demo specs shipped with the project (Harrowgate Fab 3). */
 export const DEMO_SPEC_FILE = fileURLToPath(new URL('../../fixtures/lots/harrowgate-fab3-specs.yaml', import.meta.url));
 
-const SLACK_USER = /^[UW][A-Z0-9]{2,20}$/;
+/** Who may be listed: Slack user ids (U…), HTTP API clients (api:<name>), Teams users (teams:<AAD object id>). */
+const SLACK_USER = /^([UW][A-Z0-9]{2,20}|api:[a-z0-9][a-z0-9_-]{0,31}|teams:[0-9a-fA-F-]{36})$/;
 const SLACK_CHANNEL = /^[CGD][A-Z0-9]{2,20}$/;
 
 const idList = (variable: string, pattern: RegExp, what: string, example: string) =>
@@ -85,9 +86,9 @@ export const LotsEnv = z
       .string()
       .refine(isValidTimeZone, { error: 'DIGEST_TZ must be an IANA time zone name, e.g. Europe/London or America/Phoenix' })
       .default('UTC'),
-    RECORD_USERS: idList('RECORD_USERS', SLACK_USER, 'Slack user ids', 'U012AB3CD,U045EF6GH'),
+    RECORD_USERS: idList('RECORD_USERS', SLACK_USER, 'Slack user ids, api:<client> or teams:<user id>', 'U012AB3CD,api:mes-line3'),
     RECORD_CHANNELS: idList('RECORD_CHANNELS', SLACK_CHANNEL, 'Slack channel ids', 'C0123ABCD'),
-    CLEAR_USERS: idList('CLEAR_USERS', SLACK_USER, 'Slack user ids', 'U012AB3CD'),
+    CLEAR_USERS: idList('CLEAR_USERS', SLACK_USER, 'Slack user ids, api:<client> or teams:<user id>', 'U012AB3CD'),
     CLEAR_CHANNELS: idList('CLEAR_CHANNELS', SLACK_CHANNEL, 'Slack channel ids', 'C0123ABCD'),
     LOT_PATTERN: z
       .string()
