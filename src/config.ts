@@ -18,6 +18,7 @@ import { z } from 'zod';
 import { HttpApiEnv } from './adapters/http/config.js';
 import { SlackEnv } from './adapters/slack/config.js';
 import { StorageEnv } from './adapters/storage/config.js';
+import { TeamsEnv } from './adapters/teams/config.js';
 import { LotsEnv } from './lots/config.js';
 
 export { Secret } from './adapters/secret.js';
@@ -54,6 +55,7 @@ export const configSections = {
   storage: StorageEnv,
   slack: SlackEnv,
   httpApi: HttpApiEnv,
+  teams: TeamsEnv,
   lots: LotsEnv,
 } as const;
 

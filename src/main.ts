@@ -64,7 +64,7 @@ export async function main(argv: readonly string[], io: MainIo = process as unkn
 
 /** Whether any chat surface is configured (otherwise the local console runs). */
 export function hasChatSurface(config: Config): boolean {
-  return config.slack !== undefined || config.httpApi !== undefined;
+  return config.slack !== undefined || config.httpApi !== undefined || config.teams !== undefined;
 }
 
 /**
@@ -191,7 +191,13 @@ function codeOf(e: unknown): string | undefined {
  */
 export async function serve(config: Config, deps: ServeDeps): Promise<number> {
   const { createLogger } = await import('./adapters/slack/logger.js');
-  const secrets = [config.slack?.botToken.reveal(), config.slack?.transport === 'socket' ? config.slack.appToken.reveal() : config.slack?.signingSecret.reveal(), config.storage.kind === 'postgres' ? config.storage.url.reveal() : undefined].filter(
+  const secrets = [
+    config.slack?.botToken.reveal(),
+    config.slack?.transport === 'socket' ? config.slack.appToken.reveal() : config.slack?.signingSecret.reveal(),
+    config.storage.kind === 'postgres' ? config.storage.url.reveal() : undefined,
+    config.teams?.appPassword.reveal(),
+    ...(config.httpApi?.keys.map((k) => k.key.reveal()) ?? []),
+  ].filter(
     (s): s is string => s !== undefined && s !== '',
   );
   const logger = deps.logger ?? createLogger({ sink: (line) => deps.io.stderr.write(line + '\n'), level: config.base.logLevel, secrets });
@@ -216,6 +222,10 @@ export async function serve(config: Config, deps: ServeDeps): Promise<number> {
   if (config.httpApi) {
     const { httpApiSurface } = await import('./adapters/http/index.js');
     surfaces.push(httpApiSurface(app, { config: config.httpApi, host: config.base.host, log: logger }));
+  }
+  if (config.teams) {
+    const { teamsSurface } = await import('./adapters/teams/index.js');
+    surfaces.push(teamsSurface(app, { config: config.teams, host: config.base.host, log: logger }));
   }
   const started: Surface[] = [];
   let daily: DailySummaryJob | undefined;
