@@ -178,3 +178,30 @@ describe('readEnvironment', () => {
     expect(readEnvironment({ cwd: dir, env: { PORT: '5000' } })).toEqual({ PORT: '5000' });
   });
 });
+
+describe('the HTTP API and Teams sections', () => {
+  const problemsOf = (env: Record<string, string>) => {
+    const r = loadConfig(env);
+    return r.ok ? [] : r.problems.map((p) => `${p.variable}: ${p.message}`);
+  };
+
+  it('HTTP_API_PORT without a key is refused; a short key is named without being quoted', () => {
+    expect(problemsOf({ HTTP_API_PORT: '8080' }).join('\n')).toMatch(/HTTP_API_KEYS is missing/);
+    const short = problemsOf({ HTTP_API_PORT: '8080', HTTP_API_KEYS: 'mes-line3:abc123' }).join('\n');
+    expect(short).toMatch(/the key for mes-line3 must be at least 24 characters/);
+    expect(short).not.toContain('abc123');
+    const r = loadConfig({ HTTP_API_PORT: '8080', HTTP_API_KEYS: 'mes-line3:0123456789abcdef0123456789abcdef, spc:fedcba9876543210fedcba9876543210' });
+    expect(r.ok && r.config.httpApi?.keys.map((k) => k.name)).toEqual(['mes-line3', 'spc']);
+    expect(r.ok && JSON.stringify(r.config.httpApi)).not.toContain('0123456789abcdef');
+  });
+
+  it('Teams needs both the app id (a GUID) and the password; there is no anonymous mode', () => {
+    expect(problemsOf({ TEAMS_APP_PASSWORD: 'x' }).join('\n')).toMatch(/TEAMS_APP_ID is missing/);
+    expect(problemsOf({ TEAMS_APP_ID: 'shiftprobe' , TEAMS_APP_PASSWORD: 'x' }).join('\n')).toMatch(/TEAMS_APP_ID must be the app \(client\) id/);
+    expect(problemsOf({ TEAMS_APP_ID: '8f2b6c1e-0a4d-4b7e-9c3f-5d6e7f8a9b0c' }).join('\n')).toMatch(/TEAMS_APP_PASSWORD is missing/);
+    const r = loadConfig({ TEAMS_APP_ID: '8F2B6C1E-0A4D-4B7E-9C3F-5D6E7F8A9B0C', TEAMS_APP_PASSWORD: 'secret-value-1' });
+    expect(r.ok && r.config.teams?.appId).toBe('8f2b6c1e-0a4d-4b7e-9c3f-5d6e7f8a9b0c');
+    expect(r.ok && r.config.teams?.port).toBe(3978);
+    expect(r.ok && JSON.stringify(r.config.teams)).not.toContain('secret-value-1');
+  });
+});

@@ -56,10 +56,12 @@ describe('deploy/.env.example', () => {
     const r = loadConfig(example);
     expect(r.ok).toBe(true);
     expect(r.ok && r.config.slack).toBeUndefined();
+    expect(r.ok && r.config.httpApi).toBeUndefined();
+    expect(r.ok && r.config.teams).toBeUndefined();
   });
 
   it('names only variables the configuration reads', () => {
-    const sources = ['src/config.ts', 'src/lots/config.ts', 'src/adapters/slack/config.ts', 'src/adapters/storage/config.ts'].map((f) => readFileSync(f, 'utf8')).join('\n');
+    const sources = ['src/config.ts', 'src/lots/config.ts', 'src/adapters/slack/config.ts', 'src/adapters/storage/config.ts', 'src/adapters/http/config.ts', 'src/adapters/teams/config.ts'].map((f) => readFileSync(f, 'utf8')).join('\n');
     for (const name of Object.keys(example)) expect(sources, name).toContain(`${name}:`);
   });
 

@@ -2,7 +2,7 @@
  * The Teams-style chat surface's settings, a section of the configuration (src/config.ts):
  *
  *   TEAMS_APP_ID         the bot's app (client) id: the audience every incoming token must name.
- *                        Required whenever any TEAMS_ setting is given — there is no anonymous mode.
+ *                        Required whenever Teams is configured — there is no anonymous mode.
  *   TEAMS_APP_PASSWORD   the app's client secret, for the tokens our replies are sent with
  *   TEAMS_PORT           where activities arrive (POST /api/messages); default 3978
  *   TEAMS_DIGEST_CONVERSATION  conversation id for the daily summary (a channel's 19:…@thread… id)
@@ -48,8 +48,9 @@ export const TeamsEnv = z
     TEAMS_TOKEN_URL: httpUrl('TEAMS_TOKEN_URL'),
   })
   .superRefine((e, ctx) => {
-    const any = Object.values(e).some((v) => v !== undefined);
-    if (!any) return;
+    // The app id or password turns Teams on; the other settings alone (defaults in a copied
+    // .env) do not.
+    if (e.TEAMS_APP_ID === undefined && e.TEAMS_APP_PASSWORD === undefined && e.TEAMS_DIGEST_CONVERSATION === undefined) return;
     if (e.TEAMS_APP_ID === undefined) {
       ctx.addIssue({ code: 'custom', path: ['TEAMS_APP_ID'], message: 'TEAMS_APP_ID is missing: the Teams surface checks that every request is addressed to this app id (there is no anonymous mode)' });
     } else if (!/^[0-9a-fA-F-]{36}$/.test(e.TEAMS_APP_ID)) {
