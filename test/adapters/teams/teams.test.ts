@@ -186,6 +186,21 @@ describe('answers', () => {
   });
 });
 
+describe('every help example through Teams', () => {
+  it('each is answered with a card in the conversation (ok, or an error card with the right form)', async () => {
+    const examples = COMMANDS.flatMap((c) => c.help.examples);
+    const token = await fake.token(APP_ID);
+    for (const text of examples) {
+      const before = fake.sent.length;
+      expect(await send(activity(text), token), text).toBe(200);
+      expect(fake.sent.length, text).toBe(before + 1);
+      const card = cardOf(before) as unknown as { type: string; version: string; body: unknown[] };
+      expect(card.type).toBe('AdaptiveCard');
+      expect(card.body.length, text).toBeGreaterThan(0);
+    }
+  }, 60_000);
+});
+
 describe('cards', () => {
   it('every help example renders within the limits we keep (size, actions)', async () => {
     const ctx = testContext();
