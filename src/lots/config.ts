@@ -17,14 +17,14 @@
  *
  * DATABASE_PATH (default ./data/shiftprobe.db) is in the base section.
  */
-import { fileURLToPath } from 'node:url';
+import { fixtureFile } from './fixtures.js';
 import { z } from 'zod';
 import { DEFAULT_LOT_EXAMPLE, DEFAULT_LOT_PATTERN, lotIdRule, type LotIdRule } from './ids.js';
 import type { Permissions } from './permissions.js';
 import { CLOCK_TIME, isValidTimeZone } from './time.js';
 
 /** The invented demo specs shipped with the project (Harrowgate Fab 3). */
-export const DEMO_SPEC_FILE = fileURLToPath(new URL('../../fixtures/lots/harrowgate-fab3-specs.yaml', import.meta.url));
+export const DEMO_SPEC_FILE = fixtureFile('harrowgate-fab3-specs.yaml');
 
 /** Who may be listed: Slack user ids (U…), HTTP API clients (api:<name>), Teams users (teams:<AAD object id>). */
 const SLACK_USER = /^([UW][A-Z0-9]{2,20}|api:[a-z0-9][a-z0-9_-]{0,31}|teams:[0-9a-fA-F-]{36})$/;

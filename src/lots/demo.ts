@@ -5,7 +5,7 @@
  * nothing new. Written through the LotRepository port, so any backend takes it.
  */
 import { readFileSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
+import { fixtureFile } from './fixtures.js';
 import { parse as parseYaml } from 'yaml';
 import { z } from 'zod';
 import { FLAG_CODES, flagCodeFromWord } from './flags.js';
@@ -16,7 +16,7 @@ import { RecordRequest, type Actor } from './readings.js';
 import type { SpecCatalog } from './spec/schema.js';
 import type { LotRepository } from './repository.js';
 
-export const DEMO_HISTORY_FILE = fileURLToPath(new URL('../../fixtures/lots/harrowgate-fab3-history.yaml', import.meta.url));
+export const DEMO_HISTORY_FILE = fixtureFile('harrowgate-fab3-history.yaml');
 
 const Person = z.object({ id: z.string(), name: z.string() }).strict();
 
