@@ -122,7 +122,7 @@ async function main(): Promise<void> {
   const check = await openPostgresBackend(postgresConfig(url));
   const stored = (await check.pool.query<{ n: number; events: number }>("SELECT count(*)::integer AS n, count(DISTINCT event_id)::integer AS events FROM lot_readings WHERE event_id LIKE 'slack:message:%'")).rows[0]!;
   await check.close();
-  const instanceErrors = instances.flatMap((x) => x.log.filter((l) => /ERROR|error/.test(l)));
+  const instanceErrors = instances.flatMap((x) => x.log.filter((l) => l.includes('"level":"error"')));
   await Promise.all(instances.map((x) => x.stop()));
   await fake.stop();
   pg.stop();

@@ -41,12 +41,15 @@ export const BaseEnv = z
       .regex(/^[A-Za-z0-9.:_-]+$/, { error: 'HOST must be an address or host name to listen on, e.g. 0.0.0.0 or 127.0.0.1' })
       .optional(),
     LOG_LEVEL: z.enum(LOG_LEVELS, { error: `LOG_LEVEL must be one of ${LOG_LEVELS.join(', ')}` }).default('info'),
+    LOG_FORMAT: z.enum(['json', 'text'], { error: 'LOG_FORMAT must be json (one JSON object per line) or text (readable lines)' }).optional(),
   })
   .transform((e) => ({
     /** The HTTP port: Slack events (HTTP mode) and /healthz, /readyz (both Slack modes). 0 = any free port. */
     port: Number(e.PORT),
     host: e.HOST,
     logLevel: e.LOG_LEVEL,
+    /** Unset: text when stderr is a terminal, JSON otherwise. */
+    logFormat: e.LOG_FORMAT,
   }));
 
 /** Every section of the configuration; add a section here to extend it. */

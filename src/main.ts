@@ -12,7 +12,7 @@
  */
 import { userInfo } from 'node:os';
 import { dirname, join } from 'node:path';
-import type { Logger } from '@slack/bolt';
+import { createLogger, type AppLogger } from './adapters/log.js';
 import { Application, StartupError, type ApplicationOptions, type Handler } from './app/application.js';
 import type { DailySummaryJob } from './app/daily-summary.js';
 import { StorageError, type StorageBackend } from './app/ports.js';
@@ -149,7 +149,7 @@ export interface ServeDeps {
   readonly app?: Application;
   /** Replaces the command handler (tests). */
   readonly handle?: Handler;
-  readonly logger?: Logger;
+  readonly logger?: AppLogger;
   /** Resolves when the process should stop; SIGINT or SIGTERM when absent. */
   readonly stopSignal?: Promise<unknown>;
   /** Replaces parts of the Slack adapter's dependencies (tests: deadlines, fetch). */
@@ -190,7 +190,6 @@ function codeOf(e: unknown): string | undefined {
  * start-up failed otherwise.
  */
 export async function serve(config: Config, deps: ServeDeps): Promise<number> {
-  const { createLogger } = await import('./adapters/slack/logger.js');
   const secrets = [
     config.slack?.botToken.reveal(),
     config.slack?.transport === 'socket' ? config.slack.appToken.reveal() : config.slack?.signingSecret.reveal(),
@@ -200,7 +199,7 @@ export async function serve(config: Config, deps: ServeDeps): Promise<number> {
   ].filter(
     (s): s is string => s !== undefined && s !== '',
   );
-  const logger = deps.logger ?? createLogger({ sink: (line) => deps.io.stderr.write(line + '\n'), level: config.base.logLevel, secrets });
+  const logger = deps.logger ?? createLogger({ sink: (line) => deps.io.stderr.write(line + '\n'), level: config.base.logLevel, secrets, format: config.base.logFormat ?? ((deps.io.stderr as { isTTY?: boolean }).isTTY ? 'text' : 'json') });
   const app = deps.app ?? (await openApplication(config, deps.io.stderr, deps.handle ? { handle: deps.handle } : {}));
   if (!app) return EX_CONFIG;
   const surfaces: Surface[] = [];

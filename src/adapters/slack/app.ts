@@ -52,6 +52,8 @@ export function createSlackApp(options: SlackAppOptions): SlackRuntime {
   const { slack, deps } = options;
   const logger: Logger = deps.logger;
   const botToken = slack.botToken.reveal();
+  // The level is passed explicitly: Bolt and the Web API client otherwise reset the logger to info.
+  const logLevel = logger.getLevel();
   const clientOptions: webApi.WebClientOptions = { logger, ...(slack.apiUrl ? { slackApiUrl: slack.apiUrl } : {}) };
   const readiness = new Readiness(deps.storeHealthy);
   const routes = healthRoutes(readiness);
@@ -73,12 +75,13 @@ export function createSlackApp(options: SlackAppOptions): SlackRuntime {
   let health: Server | undefined;
   const receiver =
     slack.transport === 'http'
-      ? new HTTPReceiver({ signingSecret: slack.signingSecret.reveal(), endpoints: '/slack/events', customRoutes: routes, logger })
-      : new SocketModeReceiver({ appToken: slack.appToken.reveal(), logger, installerOptions: { clientOptions } });
+      ? new HTTPReceiver({ signingSecret: slack.signingSecret.reveal(), endpoints: '/slack/events', customRoutes: routes, logger, logLevel })
+      : new SocketModeReceiver({ appToken: slack.appToken.reveal(), logger, logLevel, installerOptions: { clientOptions } });
 
   const app = new App({
     receiver,
     logger,
+    logLevel,
     clientOptions,
     extendedErrorHandler: true,
     authorize: async () => {

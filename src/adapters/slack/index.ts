@@ -4,6 +4,7 @@
  * daily summary's notifier for DIGEST_CHANNEL.
  */
 import type { Logger } from '@slack/bolt';
+import type { AppLogger } from '../log.js';
 import type { Application } from '../../app/application.js';
 import type { Surface } from '../../app/surface.js';
 import { createSlackApp, type SlackRuntime } from './app.js';
@@ -12,7 +13,6 @@ import { DEFAULT_ACK_DEADLINE_MS, DEFAULT_HISTORY_TIMEOUT_MS, type SlackDeps } f
 import { slackSummaryNotifier } from './digest.js';
 
 export { createSlackApp, type SlackRuntime } from './app.js';
-export { createLogger } from './logger.js';
 export type { SlackDeps } from './deps.js';
 
 /** The adapter's dependencies, from the application layer. */
@@ -36,7 +36,8 @@ export interface SlackSurfaceOptions {
   /** HTTP port (events in HTTP mode, health in both); 0 picks a free port. */
   readonly port: number;
   readonly host?: string | undefined;
-  readonly logger: Logger;
+  /** The process's logger (its level holds for Bolt too). */
+  readonly logger: AppLogger;
   /** Where the daily summary is posted (DIGEST_CHANNEL); none when absent. */
   readonly digestChannel?: string | undefined;
   /** Replaces parts of the adapter's dependencies (tests: deadlines, fetch). */
@@ -53,7 +54,8 @@ export function slackSurface(app: Application, options: SlackSurfaceOptions): Sl
     slack,
     port: options.port,
     host: options.host,
-    deps: { ...slackDepsFor(app, options.logger), ...options.overrides },
+    // Bolt's Logger has the same methods; its level names are the same strings.
+    deps: { ...slackDepsFor(app, options.logger as unknown as Logger), ...options.overrides },
   });
   return {
     name: 'slack',

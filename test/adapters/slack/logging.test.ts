@@ -4,7 +4,7 @@
  * captured from the app's real logger and searched for the token and the signing secret.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createLogger, redact } from '../../../src/adapters/slack/logger.js';
+import { createLogger, redact } from '../../../src/adapters/log.js';
 import type { Handler } from '../../../src/app/application.js';
 import { handle } from '../../../src/commands/handle.js';
 import { SLACK_ACTION_IDS } from '../../../src/render/slack-blocks.js';
@@ -60,7 +60,7 @@ describe('logs', () => {
 
     const log = app.logs.join('\n');
     expect(app.logs.length).toBeGreaterThan(5);
-    expect(log).toContain('DEBUG');
+    expect(log).toContain('"level":"debug"');
     expect(log).toContain('handler blew up');
     expect(log).not.toContain(TEST_BOT_TOKEN);
     expect(log).not.toContain(TEST_SIGNING_SECRET);
@@ -75,14 +75,37 @@ describe('redact', () => {
     expect(out).toBe('token=[redacted] app=[redacted] user=[redacted] secret=[redacted] sig=[redacted]');
   });
 
-  it('the logger applies it to every argument, errors included, and honours the level', () => {
+  it('the logger writes one JSON object per line, applies it to every argument, errors included, and honours the level', () => {
     const lines: string[] = [];
     const logger = createLogger({ sink: (l) => lines.push(l), level: 'info', secrets: ['s3cr3t-value'], now: () => new Date('2031-03-04T05:06:07Z') });
     logger.debug('not shown');
     logger.error('failed:', new Error('boom s3cr3t-value'), { token: TEST_BOT_TOKEN });
     expect(lines).toHaveLength(1);
-    expect(lines[0]).toContain('2031-03-04T05:06:07.000Z ERROR [shiftprobe] failed: Error: boom [redacted]');
+    const o = JSON.parse(lines[0]!) as { time: string; level: string; name: string; msg: string; err: { type: string; message: string }; token: string };
+    expect(o).toMatchObject({ time: '2031-03-04T05:06:07.000Z', level: 'error', name: 'shiftprobe', msg: 'failed: Error: boom [redacted]', token: '[redacted]' });
+    expect(o.err).toMatchObject({ type: 'Error', message: 'boom [redacted]' });
     expect(lines[0]).not.toContain('s3cr3t-value');
     expect(lines[0]).not.toContain(TEST_BOT_TOKEN);
+    logger.setLevel('debug');
+    logger.debug('now shown');
+    expect(lines).toHaveLength(2);
+  });
+
+  it('the readable form for a terminal', () => {
+    const lines: string[] = [];
+    const logger = createLogger({ sink: (l) => lines.push(l), format: 'text', now: () => new Date('2031-03-04T05:06:07Z') });
+    logger.warn('Slack is not reachable yet (ratelimited); retrying.');
+    expect(lines).toEqual(['2031-03-04T05:06:07.000Z WARN [shiftprobe] Slack is not reachable yet (ratelimited); retrying.']);
+  });
+
+  it('LOG_LEVEL holds for the chat framework too: debug shows its Web API calls, info hides every debug line', async () => {
+    for (const level of ['debug', 'info'] as const) {
+      const app = await startTestApp({ fake, env: { LOG_LEVEL: level } });
+      await sendToSlackEndpoint(app.eventsUrl, slashCommandBody({ text: 'ni 300K', triggerId: `lvl-${level}`, responseUrl: fake.responseUrl(`lvl-${level}`) }), { secret: TEST_SIGNING_SECRET, contentType: FORM }).then((r) => r.text());
+      await app.stop();
+      const debugLines = app.logs.filter((l) => l.includes('"level":"debug"'));
+      if (level === 'debug') expect(debugLines.some((l) => l.includes("apiCall('auth.test') start"))).toBe(true);
+      else expect(debugLines).toEqual([]);
+    }
   });
 });

@@ -98,7 +98,7 @@ describe('stopping', () => {
     release();
     await stopping;
     expect(fake.callsTo('chat.postMessage').map((c) => c.params.channel)).toEqual(['D0PRIYA']);
-    expect(a.logs.join('\n')).not.toContain('ERROR');
+    expect(a.logs.join('\n')).not.toContain('"level":"error"');
   });
 });
 
