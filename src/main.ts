@@ -19,6 +19,7 @@ import { StorageError, type StorageBackend } from './app/ports.js';
 import { SurfaceConfigError, type Surface } from './app/surface.js';
 import { consoleSummaryNotifier, runConsole } from './adapters/console/console.js';
 import type { SlackDeps, SlackRuntime } from './adapters/slack/index.js';
+import { createMetrics } from './adapters/metrics.js';
 import { openBackend } from './adapters/storage/open.js';
 import { describeConfigProblems, loadConfig, readEnvironment, type Config } from './config.js';
 import { renderJson } from './render/json.js';
@@ -200,7 +201,14 @@ export async function serve(config: Config, deps: ServeDeps): Promise<number> {
     (s): s is string => s !== undefined && s !== '',
   );
   const logger = deps.logger ?? createLogger({ sink: (line) => deps.io.stderr.write(line + '\n'), level: config.base.logLevel, secrets, format: config.base.logFormat ?? ((deps.io.stderr as { isTTY?: boolean }).isTTY ? 'text' : 'json') });
-  const app = deps.app ?? (await openApplication(config, deps.io.stderr, deps.handle ? { handle: deps.handle } : {}));
+  // Metrics for every surface's /metrics; the gauges read the database at scrape time.
+  let built: Application | undefined;
+  const metrics = createMetrics(() => ({
+    ...(built?.lots ? { readingsStored: () => built!.lots!.repo.countReadings(), flagsOpen: async () => (await built!.lots!.repo.listFlags({ openOnly: true })).length } : {}),
+    ...(built ? { storeHealthy: () => built!.backend.healthy() } : {}),
+  }));
+  const app = deps.app ?? (await openApplication(config, deps.io.stderr, { metrics, ...(deps.handle ? { handle: deps.handle } : {}) }));
+  built = app;
   if (!app) return EX_CONFIG;
   const surfaces: Surface[] = [];
   let slack: SlackRuntime | undefined;

@@ -16,6 +16,7 @@ import { randomBytes } from 'node:crypto';
 import { hostname } from 'node:os';
 import type { Caller, FailureLog, HandleContext, PendingChoice, Surface } from '../commands/context.js';
 import { handle as defaultHandle } from '../commands/handle.js';
+import { findCommand } from '../commands/registry.js';
 import { recordCommand } from '../commands/lots/record.js';
 import { RecordRequest } from '../lots/readings.js';
 import { errorReply } from '../reply/build.js';
@@ -24,6 +25,7 @@ import { startLots, type LotsOptions, type LotsRuntime } from '../lots/runtime.j
 import { isShareable, isResult } from '../reply/kinds.js';
 import type { Reply } from '../reply/reply.js';
 import { DailySummaryJob, type DailySummaryDeps, type SummaryNotifier } from './daily-summary.js';
+import { NO_METRICS, type MetricsPort } from './metrics.js';
 import type { StorageBackend } from './ports.js';
 
 /** `handle` from src/commands/handle.ts, or any function of the same shape (tests). */
@@ -92,12 +94,15 @@ export interface ApplicationOptions {
   readonly handle?: Handler;
   /** Names this process in claim rows (default host:pid). */
   readonly instanceId?: string;
+  /** Where questions, summary runs and storage errors are counted (none by default). */
+  readonly metrics?: MetricsPort;
 }
 
 export class Application {
   readonly now: () => Date;
   readonly newId: () => string;
   readonly instanceId: string;
+  readonly metrics: MetricsPort;
   private readonly handler: Handler;
 
   private constructor(
@@ -109,6 +114,7 @@ export class Application {
     this.newId = options.newId ?? randomResultId;
     this.handler = options.handle ?? defaultHandle;
     this.instanceId = options.instanceId ?? `${hostname()}:${process.pid}`;
+    this.metrics = options.metrics ?? NO_METRICS;
   }
 
   /** Build the application on an open backend; a bad spec file is a StartupError. */
@@ -134,6 +140,16 @@ export class Application {
     return this.backend.ledger;
   }
 
+  /** A storage call, counted when it fails (and the failure passed on). */
+  private async storage<T>(op: () => Promise<T>): Promise<T> {
+    try {
+      return await op();
+    } catch (e) {
+      this.metrics.storageError();
+      throw e;
+    }
+  }
+
   /** The HandleContext of one request. */
   contextFor(surface: Surface, caller: Caller, session: Session, eventId?: string, log?: FailureLog): HandleContext {
     return {
@@ -151,22 +167,29 @@ export class Application {
 
   /** One question, once (see the file comment). */
   async ask(q: Question): Promise<Asked> {
-    if (q.eventKey !== undefined && !(await this.backend.ledger.claim(q.eventKey))) return { duplicate: true };
+    const started = performance.now();
+    if (q.eventKey !== undefined && !(await this.storage(() => this.backend.ledger.claim(q.eventKey!)))) return { duplicate: true };
     const session: Session = q.session ?? {};
     const before = q.conversationKey !== undefined ? await this.backend.conversations.lastResult(q.conversationKey) : session.lastResultId;
     if (before !== undefined) session.lastResultId = before;
     const ctx = this.contextFor(q.surface, q.caller, session, q.eventKey ?? q.effectKey, q.log);
     const reply = await this.handler(q.text, ctx);
     // `handle` keeps results; a `why` answer is kept here so its card's buttons work too.
-    if (isShareable(reply) && !isResult(reply)) await this.backend.results.save(reply);
+    if (isShareable(reply) && !isResult(reply)) await this.storage(() => this.backend.results.save(reply));
+    this.metrics.answered({
+      surface: q.surface,
+      command: reply.ok ? reply.command : (findCommand(q.text.trim().split(/\s+/)[0] ?? '')?.verb ?? 'unrecognised'),
+      outcome: reply.ok ? 'ok' : reply.error.code === 'internal' ? 'internal' : 'bad_input',
+      seconds: (performance.now() - started) / 1000,
+    });
     return {
       duplicate: false,
       reply,
       settle: async () => {
         if (q.conversationKey !== undefined && session.lastResultId && session.lastResultId !== before) {
-          await this.backend.conversations.setLastResult(q.conversationKey, session.lastResultId);
+          await this.storage(() => this.backend.conversations.setLastResult(q.conversationKey!, session.lastResultId!));
         }
-        if (q.eventKey !== undefined) await this.backend.ledger.complete(q.eventKey);
+        if (q.eventKey !== undefined) await this.storage(() => this.backend.ledger.complete(q.eventKey!));
       },
       abandon: async () => {
         if (q.eventKey !== undefined) await this.backend.ledger.release(q.eventKey);
@@ -221,6 +244,7 @@ export class Application {
       demo: this.lots.catalog.demo,
       instanceId: this.instanceId,
       notifiers,
+      onRun: (status) => this.metrics.summaryRun(status),
       ...options,
     });
   }

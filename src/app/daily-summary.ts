@@ -176,6 +176,8 @@ export interface DailySummaryDeps {
   readonly instanceId: string;
   readonly notifiers: readonly SummaryNotifier[];
   readonly onError?: (error: unknown, context: string) => void;
+  /** Told the status of each destination's run (metrics). */
+  readonly onRun?: (status: RunResult['status']) => void;
   readonly timing?: Pick<SchedulerDeps, 'lateAfterMs' | 'leaseMs' | 'maxAttempts' | 'retryDelayMs'>;
 }
 
@@ -224,13 +226,17 @@ export class DailySummaryJob {
     this.job = new Cron(dailyPattern(this.deps.at), { timezone: this.deps.timeZone, unref: true, protect: true }, () => {
       void this.runDue().catch((e: unknown) => this.deps.onError?.(e, 'daily summary'));
     });
-    return caught.filter((r): r is RunResult => r !== undefined);
+    const done = caught.filter((r): r is RunResult => r !== undefined);
+    for (const r of done) this.deps.onRun?.(r.status);
+    return done;
   }
 
   /** Every destination's summary due now. */
   async runDue(): Promise<RunResult[]> {
     this.digests = new Map();
-    return Promise.all(this.schedules.map((s) => s.runDue()));
+    const runs = await Promise.all(this.schedules.map((s) => s.runDue()));
+    for (const r of runs) this.deps.onRun?.(r.status);
+    return runs;
   }
 
   stop(): void {

@@ -107,6 +107,11 @@ export function createHttpApi(app: Application, keys: readonly ApiKey[], options
     return c.json({ ready: store === 'ok', store }, store === 'ok' ? 200 : 503);
   });
 
+  api.get('/metrics', async (c) => {
+    const m = await app.metrics.exposition();
+    return c.body(m.body, 200, { 'content-type': m.contentType, 'cache-control': 'no-store' });
+  });
+
   api.use('/v1/*', async (c, next) => {
     if (c.req.path === '/v1/openapi.json') return next();
     const client = ring.identify(presentedKey(c.req.header('authorization'), c.req.header('x-api-key')));

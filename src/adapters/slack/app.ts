@@ -56,7 +56,7 @@ export function createSlackApp(options: SlackAppOptions): SlackRuntime {
   const logLevel = logger.getLevel();
   const clientOptions: webApi.WebClientOptions = { logger, ...(slack.apiUrl ? { slackApiUrl: slack.apiUrl } : {}) };
   const readiness = new Readiness(deps.storeHealthy);
-  const routes = healthRoutes(readiness);
+  const routes = healthRoutes(readiness, deps.metrics);
 
   // auth.test once (no client-side retries: start-up handles them), shared by every event.
   const checker = new webApi.WebClient(botToken, { ...clientOptions, retryConfig: { retries: 0 } });

@@ -27,6 +27,8 @@ export interface SlackDeps {
   readonly ackDeadlineMs: number;
   /** Timeout for the optional channel-history call that lists recent threads. */
   readonly historyTimeoutMs: number;
+  /** The Prometheus text for /metrics (absent: no /metrics route). */
+  readonly metrics?: () => Promise<{ contentType: string; body: string }>;
   /** Display names for replies (users.info, cached); ids when absent. */
   readonly displayName?: (userId: string) => Promise<string | undefined>;
 }

@@ -28,8 +28,25 @@ export interface HealthRoute {
   readonly handler: (req: IncomingMessage, res: ServerResponse) => void;
 }
 
-export function healthRoutes(readiness: Readiness): HealthRoute[] {
+export function healthRoutes(readiness: Readiness, metrics?: () => Promise<{ contentType: string; body: string }>): HealthRoute[] {
   return [
+    ...(metrics
+      ? [
+          {
+            path: '/metrics',
+            method: ['GET'],
+            handler: (_req: IncomingMessage, res: ServerResponse) => {
+              void metrics().then(
+                (m) => {
+                  res.writeHead(200, { 'content-type': m.contentType, 'cache-control': 'no-store' });
+                  res.end(m.body);
+                },
+                () => json(res, 500, { error: 'metrics unavailable' }),
+              );
+            },
+          },
+        ]
+      : []),
     { path: '/healthz', method: ['GET', 'HEAD'], handler: (_req, res) => json(res, 200, { status: 'alive' }) },
     {
       path: '/readyz',

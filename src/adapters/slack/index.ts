@@ -26,6 +26,7 @@ export function slackDepsFor(app: Application, logger: Logger): SlackDeps {
     logger,
     fetch: globalThis.fetch.bind(globalThis),
     storeHealthy: () => app.backend.healthy(),
+    metrics: () => app.metrics.exposition(),
     ackDeadlineMs: DEFAULT_ACK_DEADLINE_MS,
     historyTimeoutMs: DEFAULT_HISTORY_TIMEOUT_MS,
   };

@@ -95,6 +95,11 @@ export function createTeamsApp(app: Application, options: TeamsSurfaceOptions): 
     return c.json({ ready: store === 'ok', store }, store === 'ok' ? 200 : 503);
   });
 
+  http.get('/metrics', async (c) => {
+    const m = await app.metrics.exposition();
+    return c.body(m.body, 200, { 'content-type': m.contentType, 'cache-control': 'no-store' });
+  });
+
   http.post('/api/messages', bodyLimit({ maxSize: 256 * 1024, onError: (c) => c.json({ error: 'too_large' }, 413) }), async (c) => {
     let activity: Activity;
     try {

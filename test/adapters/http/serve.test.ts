@@ -82,6 +82,18 @@ describe('several surfaces in one process', () => {
     });
     expect(teams.status).toBe(200);
     expect(JSON.stringify(connector.sent.at(-1)?.body)).toContain(`How ${j.id} was worked out`);
+    // /metrics on every serving port: the questions just asked, by surface and command.
+    for (const name of ['http', 'slack', 'teams']) {
+      const m = await fetch(`http://127.0.0.1:${ports[name]}/metrics`);
+      expect(m.status, name).toBe(200);
+      const text = await m.text();
+      expect(text, name).toContain('shiftprobe_questions_total{surface="http",command="doping",outcome="ok"} 1');
+      expect(text, name).toContain('shiftprobe_questions_total{surface="slack",command="why",outcome="ok"} 1');
+      expect(text, name).toMatch(/shiftprobe_answer_seconds_bucket\{le="[0-9.]+",surface="teams"\} 1/);
+      expect(text, name).toMatch(/shiftprobe_readings_stored [1-9]\d*/);
+      expect(text, name).toMatch(/shiftprobe_flags_open \d+/);
+      expect(text, name).toContain('shiftprobe_store_up 1');
+    }
     stop();
     expect(await running).toBe(0);
   }, 30_000);
