@@ -41,6 +41,10 @@ export const BaseEnv = z
       .regex(/^[A-Za-z0-9.:_-]+$/, { error: 'HOST must be an address or host name to listen on, e.g. 0.0.0.0 or 127.0.0.1' })
       .optional(),
     LOG_LEVEL: z.enum(LOG_LEVELS, { error: `LOG_LEVEL must be one of ${LOG_LEVELS.join(', ')}` }).default('info'),
+    SHUTDOWN_GRACE_MS: z
+      .string()
+      .refine((s) => /^\d{1,7}$/.test(s), { error: 'SHUTDOWN_GRACE_MS must be a whole number of milliseconds, e.g. 25000' })
+      .default('25000'),
     LOG_FORMAT: z.enum(['json', 'text'], { error: 'LOG_FORMAT must be json (one JSON object per line) or text (readable lines)' }).optional(),
   })
   .transform((e) => ({
@@ -50,6 +54,8 @@ export const BaseEnv = z
     logLevel: e.LOG_LEVEL,
     /** Unset: text when stderr is a terminal, JSON otherwise. */
     logFormat: e.LOG_FORMAT,
+    /** How long a stop (SIGTERM) waits for answers in flight before closing the database. */
+    shutdownGraceMs: Number(e.SHUTDOWN_GRACE_MS),
   }));
 
 /** Every section of the configuration; add a section here to extend it. */

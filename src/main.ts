@@ -221,6 +221,7 @@ export async function serve(config: Config, deps: ServeDeps): Promise<number> {
       host: config.base.host,
       logger,
       digestChannel: config.lots.digest.channel,
+      stopGraceMs: config.base.shutdownGraceMs,
       ...(deps.slackOverrides ? { overrides: deps.slackOverrides } : {}),
     });
     slack = s.runtime;
@@ -228,11 +229,11 @@ export async function serve(config: Config, deps: ServeDeps): Promise<number> {
   }
   if (config.httpApi) {
     const { httpApiSurface } = await import('./adapters/http/index.js');
-    surfaces.push(httpApiSurface(app, { config: config.httpApi, host: config.base.host, log: logger }));
+    surfaces.push(httpApiSurface(app, { config: config.httpApi, host: config.base.host, log: logger, stopGraceMs: config.base.shutdownGraceMs }));
   }
   if (config.teams) {
     const { teamsSurface } = await import('./adapters/teams/index.js');
-    surfaces.push(teamsSurface(app, { config: config.teams, host: config.base.host, log: logger }));
+    surfaces.push(teamsSurface(app, { config: config.teams, host: config.base.host, log: logger, stopGraceMs: config.base.shutdownGraceMs }));
   }
   const started: Surface[] = [];
   let daily: DailySummaryJob | undefined;
@@ -250,7 +251,8 @@ export async function serve(config: Config, deps: ServeDeps): Promise<number> {
     daily = app.dailySummary(notifiers, { onError: (e, context) => logger.error(`shiftprobe: ${context} could not be posted:`, e) });
     await daily?.start();
     deps.onReady?.({ port, ports, app, ...(slack ? { slack } : {}), ...(daily ? { daily } : {}) });
-    await (deps.stopSignal ?? untilSignal());
+    const signal = await (deps.stopSignal ?? untilSignal());
+    logger.info(`shiftprobe is stopping${typeof signal === 'string' ? ` (${signal})` : ''}: no new requests; answers in flight finish (up to ${config.base.shutdownGraceMs} ms), then the database closes`);
     return 0;
   } catch (error) {
     if (error instanceof SurfaceConfigError) {

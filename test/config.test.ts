@@ -29,7 +29,7 @@ describe('choosing the surface', () => {
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     expect(surfaceOf(r.config)).toBe('console');
-    expect(r.config.base).toEqual({ port: 3000, host: undefined, logLevel: 'info' });
+    expect(r.config.base).toEqual({ port: 3000, host: undefined, logLevel: 'info', logFormat: undefined, shutdownGraceMs: 25000 });
     expect(r.config.storage).toEqual({ kind: 'sqlite', path: './data/shiftprobe.db' });
   });
 

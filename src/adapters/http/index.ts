@@ -80,6 +80,8 @@ export interface HttpApiOptions {
   readonly host?: string | undefined;
   readonly log: FailureLog & { info?(...a: unknown[]): void };
   readonly now?: () => number;
+  /** How long stopping waits for requests in flight before closing their connections. */
+  readonly stopGraceMs?: number;
 }
 
 /** The hono app (exported for tests that call it without a socket). */
@@ -233,7 +235,7 @@ export function httpApiSurface(app: Application, options: HttpApiOptions): Surfa
         (s as unknown as { closeIdleConnections?: () => void }).closeIdleConnections?.();
         setTimeout(() => {
           (s as unknown as { closeAllConnections?: () => void }).closeAllConnections?.();
-        }, 5000).unref();
+        }, options.stopGraceMs ?? 25_000).unref();
       });
     },
     summaryNotifier: () => undefined,

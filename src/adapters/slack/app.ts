@@ -17,11 +17,17 @@ import { registerActions } from './listeners/actions.js';
 import { registerCommands } from './listeners/commands.js';
 import { registerEvents } from './listeners/events.js';
 import { slackErrorCode } from './slack-errors.js';
+import { RECEIVED_AT } from './outbound.js';
 
 export interface SlackAppOptions {
   readonly slack: SlackConfig;
   /** HTTP port (events in HTTP mode, health in both); 0 picks a free port. */
   readonly port: number;
+  /**
+   * How long stopping waits for work in flight: events are acknowledged to Slack before they
+   * are answered, so an acknowledged `record` must finish before the process ends.
+   */
+  readonly stopGraceMs?: number;
   readonly host?: string | undefined;
   readonly deps: SlackDeps;
 }
@@ -36,8 +42,8 @@ export interface SlackRuntime {
   stop(): Promise<void>;
 }
 
-/** How long stopping waits for answers in flight. */
-const STOP_GRACE_MS = 5000;
+/** How long stopping waits for answers in flight, unless the options say otherwise. */
+const STOP_GRACE_MS = 25_000;
 
 /** Answers from auth.test that no retry will change. */
 const REJECTED = new Set(['invalid_auth', 'not_authed', 'account_inactive', 'token_revoked', 'token_expired', 'not_allowed_token_type']);
@@ -73,10 +79,34 @@ export function createSlackApp(options: SlackAppOptions): SlackRuntime {
   };
 
   let health: Server | undefined;
+  // When each request arrived (HTTP: when the server handed it over; Socket Mode: when the
+  // event came off the socket), so the slash command's 3-second budget counts from then, not
+  // from when a busy process got round to the listener.
+  const arrived = new WeakMap<object, number>();
   const receiver =
     slack.transport === 'http'
-      ? new HTTPReceiver({ signingSecret: slack.signingSecret.reveal(), endpoints: '/slack/events', customRoutes: routes, logger, logLevel })
-      : new SocketModeReceiver({ appToken: slack.appToken.reveal(), logger, logLevel, installerOptions: { clientOptions } });
+      ? new HTTPReceiver({
+          signingSecret: slack.signingSecret.reveal(),
+          endpoints: '/slack/events',
+          customRoutes: routes,
+          logger,
+          logLevel,
+          customPropertiesExtractor: (req) => ({ [RECEIVED_AT]: arrived.get(req) ?? Date.now() }),
+        })
+      : new SocketModeReceiver({
+          appToken: slack.appToken.reveal(),
+          logger,
+          logLevel,
+          installerOptions: { clientOptions },
+          customPropertiesExtractor: () => ({ [RECEIVED_AT]: Date.now() }),
+        });
+  if (receiver instanceof HTTPReceiver) {
+    const inner = receiver.requestListener;
+    receiver.requestListener = (req, res) => {
+      arrived.set(req, Date.now());
+      inner(req, res);
+    };
+  }
 
   const app = new App({
     receiver,
@@ -198,7 +228,7 @@ export function createSlackApp(options: SlackAppOptions): SlackRuntime {
       readiness.slack = 'stopped';
       clearTimeout(retry);
       await app.stop().catch(() => undefined); // no new requests
-      await drain(STOP_GRACE_MS); // answers already being made finish
+      await drain(options.stopGraceMs ?? STOP_GRACE_MS); // answers already being made (and acknowledged events) finish
       if (health) await new Promise<void>((resolve) => health!.close(() => resolve()));
       health = undefined;
     },

@@ -43,6 +43,8 @@ export interface SlackSurfaceOptions {
   readonly digestChannel?: string | undefined;
   /** Replaces parts of the adapter's dependencies (tests: deadlines, fetch). */
   readonly overrides?: Partial<SlackDeps>;
+  /** How long stopping waits for work in flight (SHUTDOWN_GRACE_MS). */
+  readonly stopGraceMs?: number;
 }
 
 export interface SlackSurface extends Surface {
@@ -55,6 +57,7 @@ export function slackSurface(app: Application, options: SlackSurfaceOptions): Sl
     slack,
     port: options.port,
     host: options.host,
+    ...(options.stopGraceMs !== undefined ? { stopGraceMs: options.stopGraceMs } : {}),
     // Bolt's Logger has the same methods; its level names are the same strings.
     deps: { ...slackDepsFor(app, options.logger as unknown as Logger), ...options.overrides },
   });

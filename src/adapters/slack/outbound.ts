@@ -75,6 +75,18 @@ export async function toResponseUrl(
 }
 
 /** Resolves with the promise's value, or with `undefined` once `ms` have passed. */
+/** The context property with the request's arrival time (ms since the epoch). */
+export const RECEIVED_AT = 'shiftprobeReceivedAt';
+
+/**
+ * How much of the acknowledgement budget is left for a request that arrived at `receivedAt`
+ * (never negative; the whole budget when the arrival time is unknown).
+ */
+export function ackBudgetMs(receivedAt: unknown, now: number, deadlineMs: number): number {
+  if (typeof receivedAt !== 'number' || !Number.isFinite(receivedAt)) return deadlineMs;
+  return Math.max(0, deadlineMs - Math.max(0, now - receivedAt));
+}
+
 export async function within<T>(promise: Promise<T>, ms: number): Promise<T | undefined> {
   let timer: NodeJS.Timeout | undefined;
   const late = new Promise<undefined>((resolve) => {

@@ -80,6 +80,8 @@ export interface TeamsSurfaceOptions {
   readonly host?: string | undefined;
   readonly log: FailureLog & { info?(...a: unknown[]): void; warn?(...a: unknown[]): void };
   readonly fetch?: typeof fetch;
+  /** How long stopping waits for activities in flight. */
+  readonly stopGraceMs?: number;
 }
 
 export function createTeamsApp(app: Application, options: TeamsSurfaceOptions): { http: Hono; connector: Connector } {
@@ -189,7 +191,7 @@ export function teamsSurface(app: Application, options: TeamsSurfaceOptions): Su
       await new Promise<void>((resolve) => {
         s.close(() => resolve());
         (s as unknown as { closeIdleConnections?: () => void }).closeIdleConnections?.();
-        setTimeout(() => (s as unknown as { closeAllConnections?: () => void }).closeAllConnections?.(), 5000).unref();
+        setTimeout(() => (s as unknown as { closeAllConnections?: () => void }).closeAllConnections?.(), options.stopGraceMs ?? 25_000).unref();
       });
     },
     summaryNotifier(): SummaryNotifier | undefined {

@@ -22,3 +22,14 @@ describe('commandTextFromSlack', () => {
     expect(commandTextFromSlack(undefined)).toBe('');
   });
 });
+
+describe('the acknowledgement budget counts from the request’s arrival', () => {
+  it('what is left of 2 s after the request waited for a busy process', async () => {
+    const { ackBudgetMs } = await import('../../../src/adapters/slack/outbound.js');
+    expect(ackBudgetMs(10_000, 10_000, 2000)).toBe(2000);
+    expect(ackBudgetMs(10_000, 11_500, 2000)).toBe(500); // 1.5 s spent before the listener ran
+    expect(ackBudgetMs(10_000, 19_900, 2000)).toBe(0); // starved: acknowledge at once ("working on it")
+    expect(ackBudgetMs(undefined, 19_900, 2000)).toBe(2000); // arrival unknown: the whole budget
+    expect(ackBudgetMs(20_000, 19_900, 2000)).toBe(2000); // a clock step backwards never adds time
+  });
+});

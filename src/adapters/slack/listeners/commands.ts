@@ -9,12 +9,13 @@ import { ask, eventKeys } from '../conversation.js';
 import { cardFor } from '../cards.js';
 import type { ListenerDeps } from '../deps.js';
 import { commandTextFromSlack } from '../incoming-text.js';
-import { toResponseUrl, within } from '../outbound.js';
+import { ackBudgetMs, RECEIVED_AT, toResponseUrl, within } from '../outbound.js';
 
 const WORKING = ':hourglass_flowing_sand: Working on it…';
 
 export function registerCommands(app: App, deps: ListenerDeps): void {
-  app.command(deps.slashCommand, async ({ command, ack: ackSlack }) => {
+  app.command(deps.slashCommand, async ({ command, ack: ackSlack, context }) => {
+    const budgetMs = ackBudgetMs(context[RECEIVED_AT], Date.now(), deps.ackDeadlineMs);
     // Slack takes one acknowledgement; if something fails before it, the failure note is it.
     let acked = false;
     const ack: typeof ackSlack = async (body) => {
@@ -22,7 +23,7 @@ export function registerCommands(app: App, deps: ListenerDeps): void {
       await ackSlack(body);
     };
     try {
-      await answer(command, ack);
+      await answer(command, ack, budgetMs);
     } catch (error) {
       if (acked) throw error; // the global handler answers through the response URL
       await ackSlack({ response_type: 'ephemeral', ...failureMessage() });
@@ -30,7 +31,7 @@ export function registerCommands(app: App, deps: ListenerDeps): void {
     }
   });
 
-  async function answer(command: SlashCommand, ack: (body?: Parameters<AckFn<string | RespondArguments>>[0]) => Promise<void>): Promise<void> {
+  async function answer(command: SlashCommand, ack: (body?: Parameters<AckFn<string | RespondArguments>>[0]) => Promise<void>, budgetMs: number): Promise<void> {
     const where = {
       teamId: command.team_id,
       userId: command.user_id,
@@ -39,7 +40,7 @@ export function registerCommands(app: App, deps: ListenerDeps): void {
     };
     const helpHint = `${deps.slashCommand} help`;
     const pending = ask(deps, commandTextFromSlack(command.text), where);
-    const asked = await within(pending, deps.ackDeadlineMs);
+    const asked = await within(pending, budgetMs);
     if (asked === null) return ack(); // a duplicate delivery: answered elsewhere
     if (asked) {
       await ack({ response_type: 'ephemeral', ...cardFor(asked.reply, 'private', { helpHint }) });

@@ -52,6 +52,8 @@ export class FakeSlack {
   readonly calls: ApiCall[] = [];
   readonly responsePosts: ResponseUrlPost[] = [];
   private readonly overrides = new Map<string, Answer>();
+  /** Milliseconds to wait before answering a Web API method (a slow Slack). */
+  readonly delays = new Map<string, number>();
   private server: Server | undefined;
   private port = 0;
   private ts = 1_930_000_000;
@@ -125,6 +127,8 @@ export class FakeSlack {
       const token = auth?.startsWith('Bearer ') ? auth.slice(7) : typeof params.token === 'string' ? params.token : undefined;
       delete params.token;
       this.calls.push({ method, params, token });
+      const delay = this.delays.get(method);
+      if (delay) await new Promise((r) => setTimeout(r, delay));
       const answer = this.overrides.get(method)?.(params) ?? this.defaultAnswer(method, params);
       res.writeHead(200, { 'content-type': 'application/json; charset=utf-8' }).end(JSON.stringify(answer));
     });
