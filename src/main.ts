@@ -20,6 +20,7 @@ import { SurfaceConfigError, type Surface } from './app/surface.js';
 import { consoleSummaryNotifier, runConsole } from './adapters/console/console.js';
 import type { SlackDeps, SlackRuntime } from './adapters/slack/index.js';
 import { createMetrics } from './adapters/metrics.js';
+import { proxiedFetch } from './adapters/proxy.js';
 import { openBackend } from './adapters/storage/open.js';
 import { describeConfigProblems, loadConfig, readEnvironment, type Config } from './config.js';
 import { renderJson } from './render/json.js';
@@ -59,7 +60,7 @@ export async function main(argv: readonly string[], io: MainIo = process as unkn
   }
   const config = loaded.config;
   if (text.trim() !== '' && !serveFlag) return oneShot(text, json, config, io);
-  if (hasChatSurface(config)) return serve(config, { io });
+  if (hasChatSurface(config)) return serve(config, { io, env: io.env });
   return startConsole(config, io);
 }
 
@@ -146,6 +147,8 @@ async function startConsole(config: Config, io: MainIo): Promise<number> {
 
 export interface ServeDeps {
   readonly io: { readonly stderr: NodeJS.WritableStream };
+  /** The environment, for the proxy variables (HTTPS_PROXY, HTTP_PROXY, NO_PROXY); process.env when absent. */
+  readonly env?: Readonly<Record<string, string | undefined>>;
   /** An application built already (tests: fixed clock and ids); opened from the settings when absent. */
   readonly app?: Application;
   /** Replaces the command handler (tests). */
@@ -210,6 +213,9 @@ export async function serve(config: Config, deps: ServeDeps): Promise<number> {
   const app = deps.app ?? (await openApplication(config, deps.io.stderr, { metrics, ...(deps.handle ? { handle: deps.handle } : {}) }));
   built = app;
   if (!app) return EX_CONFIG;
+  const env = deps.env ?? process.env;
+  const outbound = proxiedFetch(env);
+  if (outbound) logger.info('outbound HTTP goes through the proxy named by HTTPS_PROXY / HTTP_PROXY (NO_PROXY excepted)');
   const surfaces: Surface[] = [];
   let slack: SlackRuntime | undefined;
   if (config.slack) {
@@ -222,6 +228,7 @@ export async function serve(config: Config, deps: ServeDeps): Promise<number> {
       logger,
       digestChannel: config.lots.digest.channel,
       stopGraceMs: config.base.shutdownGraceMs,
+      ...(outbound ? { fetch: outbound } : {}),
       ...(deps.slackOverrides ? { overrides: deps.slackOverrides } : {}),
     });
     slack = s.runtime;
@@ -233,7 +240,7 @@ export async function serve(config: Config, deps: ServeDeps): Promise<number> {
   }
   if (config.teams) {
     const { teamsSurface } = await import('./adapters/teams/index.js');
-    surfaces.push(teamsSurface(app, { config: config.teams, host: config.base.host, log: logger, stopGraceMs: config.base.shutdownGraceMs }));
+    surfaces.push(teamsSurface(app, { config: config.teams, host: config.base.host, log: logger, stopGraceMs: config.base.shutdownGraceMs, ...(outbound ? { fetch: outbound } : {}) }));
   }
   const started: Surface[] = [];
   let daily: DailySummaryJob | undefined;

@@ -28,6 +28,8 @@ export interface SlackAppOptions {
    * are answered, so an acknowledged `record` must finish before the process ends.
    */
   readonly stopGraceMs?: number;
+  /** The Web API client's fetch (a proxy's, see src/adapters/proxy.ts); none: the global fetch. */
+  readonly fetch?: typeof fetch;
   readonly host?: string | undefined;
   readonly deps: SlackDeps;
 }
@@ -60,7 +62,7 @@ export function createSlackApp(options: SlackAppOptions): SlackRuntime {
   const botToken = slack.botToken.reveal();
   // The level is passed explicitly: Bolt and the Web API client otherwise reset the logger to info.
   const logLevel = logger.getLevel();
-  const clientOptions: webApi.WebClientOptions = { logger, ...(slack.apiUrl ? { slackApiUrl: slack.apiUrl } : {}) };
+  const clientOptions: webApi.WebClientOptions = { logger, ...(slack.apiUrl ? { slackApiUrl: slack.apiUrl } : {}), ...(options.fetch ? { fetch: options.fetch } : {}) };
   const readiness = new Readiness(deps.storeHealthy);
   const routes = healthRoutes(readiness, deps.metrics);
 

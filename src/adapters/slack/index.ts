@@ -45,6 +45,8 @@ export interface SlackSurfaceOptions {
   readonly overrides?: Partial<SlackDeps>;
   /** How long stopping waits for work in flight (SHUTDOWN_GRACE_MS). */
   readonly stopGraceMs?: number;
+  /** The fetch for every outbound call (the Web API client, response URLs): a proxy's, or the global one. */
+  readonly fetch?: typeof fetch;
 }
 
 export interface SlackSurface extends Surface {
@@ -58,8 +60,9 @@ export function slackSurface(app: Application, options: SlackSurfaceOptions): Sl
     port: options.port,
     host: options.host,
     ...(options.stopGraceMs !== undefined ? { stopGraceMs: options.stopGraceMs } : {}),
+    ...(options.fetch ? { fetch: options.fetch } : {}),
     // Bolt's Logger has the same methods; its level names are the same strings.
-    deps: { ...slackDepsFor(app, options.logger as unknown as Logger), ...options.overrides },
+    deps: { ...slackDepsFor(app, options.logger as unknown as Logger), ...(options.fetch ? { fetch: options.fetch } : {}), ...options.overrides },
   });
   return {
     name: 'slack',

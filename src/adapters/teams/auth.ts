@@ -5,7 +5,7 @@
  * memory), and — when the token names one — for the service URL the activity came from.
  * jose does the JWT and key-set work (fetching, caching, refetching on an unknown key id).
  */
-import { createRemoteJWKSet, jwtVerify, type JWTVerifyGetKey } from 'jose';
+import { createRemoteJWKSet, customFetch, jwtVerify, type JWTVerifyGetKey } from 'jose';
 import { CONNECTOR_ISSUER } from './config.js';
 
 export type TokenCheck = { readonly ok: true } | { readonly ok: false; readonly reason: string; readonly unavailable?: boolean };
@@ -27,7 +27,7 @@ export class TokenValidator {
     if (!res.ok) throw new Error(`OpenID configuration: HTTP ${res.status}`);
     const doc = (await res.json()) as { jwks_uri?: unknown };
     if (typeof doc.jwks_uri !== 'string') throw new Error('OpenID configuration without jwks_uri');
-    this.keys = createRemoteJWKSet(new URL(doc.jwks_uri), { timeoutDuration: 10_000, cooldownDuration: 30_000 });
+    this.keys = createRemoteJWKSet(new URL(doc.jwks_uri), { timeoutDuration: 10_000, cooldownDuration: 30_000, [customFetch]: this.fetchFn });
     this.keysAt = Date.now();
     return this.keys;
   }
