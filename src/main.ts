@@ -4,12 +4,14 @@
  *   shiftprobe --json "<command>"   one reply as a JSON object (the contract in README.md)
  *   shiftprobe --serve              every configured surface (Slack…), otherwise the local console
  *   shiftprobe                      (no command) the same
+ *   shiftprobe --backup <file>      an online copy of the SQLite database (safe while it runs)
  *
  * The only module that knows every part: it reads the settings, opens the storage backend,
  * builds the application layer, starts any number of surfaces in one process and the one daily
  * summary job, and stops them in order. Exit 78 (EX_CONFIG) for anything the operator must fix
  * in the settings, with a message naming the setting and no stack trace.
  */
+import { existsSync, mkdirSync } from 'node:fs';
 import { userInfo } from 'node:os';
 import { dirname, join } from 'node:path';
 import { createLogger, type AppLogger } from './adapters/log.js';
@@ -35,6 +37,7 @@ export interface MainIo {
 
 const USAGE = [
   'usage: shiftprobe [--json] "<command>"   one answer, e.g. shiftprobe "rho 8.2 ohm-cm p"',
+  '       shiftprobe --backup <file>       a consistent copy of the SQLite database, taken while it runs',
   '       shiftprobe                       the local console (or the chat surfaces, when configured)',
 ].join('\n');
 
@@ -47,6 +50,8 @@ export async function main(argv: readonly string[], io: MainIo = process as unkn
     io.stdout.write(USAGE + '\n');
     return 0;
   }
+  const backupAt = argv.indexOf('--backup');
+  if (backupAt >= 0) return backup(argv[backupAt + 1], io);
   const unknownFlag = argv.find((a) => a.startsWith('--') && a !== '--json' && a !== '--serve');
   if (unknownFlag) {
     io.stderr.write(`shiftprobe: unknown option ${unknownFlag}\n${USAGE}\n`);
@@ -62,6 +67,52 @@ export async function main(argv: readonly string[], io: MainIo = process as unkn
   if (text.trim() !== '' && !serveFlag) return oneShot(text, json, config, io);
   if (hasChatSurface(config)) return serve(config, { io, env: io.env });
   return startConsole(config, io);
+}
+
+/**
+ * `--backup <file>`: SQLite's online backup API copies the database page by page while other
+ * processes keep writing, so the copy is consistent without stopping the service. PostgreSQL has
+ * its own tools (pg_dump; docs/operations.md).
+ */
+async function backup(target: string | undefined, io: MainIo): Promise<number> {
+  if (!target || target.startsWith('--')) {
+    io.stderr.write(`shiftprobe: --backup needs the file to write, e.g. shiftprobe --backup ./backups/shiftprobe-2026-12-02.db\n`);
+    return 2;
+  }
+  const loaded = loadConfig(readEnvironment({ env: io.env }));
+  if (!loaded.ok) {
+    io.stderr.write(describeConfigProblems(loaded.problems) + '\n');
+    return EX_CONFIG;
+  }
+  const storage = loaded.config.storage;
+  if (storage.kind !== 'sqlite') {
+    io.stderr.write('shiftprobe: DATABASE_URL names PostgreSQL; back it up with pg_dump -Fc (docs/operations.md, "Backup and restore").\n');
+    return 2;
+  }
+  if (existsSync(target)) {
+    io.stderr.write(`shiftprobe: ${target} exists already; choose a new file (a backup never overwrites one).\n`);
+    return 2;
+  }
+  const { openDatabase } = await import('./adapters/storage/sqlite/db.js');
+  const { SQLITE_MIGRATIONS } = await import('./adapters/storage/sqlite/backend.js');
+  let db;
+  try {
+    db = openDatabase(storage.path, SQLITE_MIGRATIONS);
+  } catch (e) {
+    io.stderr.write(`shiftprobe cannot back up: ${e instanceof Error ? e.message : String(e)}\n`);
+    return EX_CONFIG;
+  }
+  try {
+    mkdirSync(dirname(target), { recursive: true });
+    const r = await db.backup(target);
+    io.stdout.write(`Backed up ${storage.path} to ${target} (${r.totalPages} pages). Restore: stop shiftprobe, put the copy at DATABASE_PATH, start it.\n`);
+    return 0;
+  } catch (e) {
+    io.stderr.write(`shiftprobe: the backup to ${target} failed (${(e as { code?: string }).code ?? (e instanceof Error ? e.message : 'error')}); nothing was changed in ${storage.path}.\n`);
+    return 1;
+  } finally {
+    db.close();
+  }
 }
 
 /** Whether any chat surface is configured (otherwise the local console runs). */

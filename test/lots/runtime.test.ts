@@ -111,3 +111,19 @@ describe('the entry point', () => {
     expect(out).toContain('bye');
   }, 60_000);
 });
+
+describe('backup', () => {
+  it('--backup copies the database while it is in use; the copy opens and holds the readings', async () => {
+    const db = join(tmp.dir, 'live.db');
+    expect((await cli({ DATABASE_PATH: db }, 'record LOT-A21 w5 rho 9.8 ohm-cm')).code).toBe(0);
+    const copy = join(tmp.dir, 'backups', 'copy.db');
+    const b = await cli({ DATABASE_PATH: db }, '--backup', copy);
+    expect(b.code, b.stderr).toBe(0);
+    expect(b.stdout).toMatch(/Backed up .* \(\d+ pages\)/);
+    const lot = await cli({ DATABASE_PATH: copy }, 'lot LOT-A21');
+    expect(lot.stdout).toContain('rho 9.8 ohm-cm');
+    const again = await cli({ DATABASE_PATH: db }, '--backup', copy);
+    expect(again.code).toBe(2);
+    expect(again.stderr).toContain('exists already');
+  }, 60_000);
+});
