@@ -1,7 +1,9 @@
 /**
- * Regenerates the example outputs in README.md (between the `<!-- examples:begin -->` and
- * `<!-- examples:end -->` markers) by running each command through the same `handle` and text
- * renderer the console uses, with a fixed clock and sequential result ids so the text is stable.
+ * Regenerates the example outputs — every example in docs/examples.md, a few in README.md (each
+ * between its `<!-- examples:begin -->` and `<!-- examples:end -->` markers) — by running each
+ * command through the same `handle` and text renderer the console uses, with a fixed clock and
+ * sequential result ids so the text is stable. The command shown is the direct one
+ * (`shiftprobe`, as installed by npm ci; `npx shiftprobe` adds npx's own start-up).
  *   npm run readme:examples
  */
 import { readFileSync, writeFileSync } from 'node:fs';
@@ -41,6 +43,19 @@ const EXAMPLES: readonly { heading: string; commands: readonly string[]; json?: 
 
 const JSON_EXAMPLES = ['rho 8.2 ohm-cm p', 'rho -8.2 ohm-cm p'];
 
+/** The few the README shows. */
+const README_EXAMPLES: readonly string[] = ['rho 8.2 ohm-cm p', 'type hot -1.4mV rho 12 ohm-cm expect n', 'record LOT-A17 w3 site 4 rho 12.9 ohm-cm'];
+
+function replaceBetweenMarkers(file: string, body: string): void {
+  const text = readFileSync(file, 'utf8');
+  const begin = '<!-- examples:begin -->';
+  const end = '<!-- examples:end -->';
+  const a = text.indexOf(begin);
+  const b = text.indexOf(end);
+  if (a < 0 || b < a) throw new Error(`${file} has no examples markers`);
+  writeFileSync(file, text.slice(0, a + begin.length) + '\n' + body + text.slice(b));
+}
+
 async function main(): Promise<void> {
   let n = 0;
   const now = () => new Date('2026-11-30T14:05:00Z');
@@ -55,24 +70,27 @@ async function main(): Promise<void> {
   };
   const out: string[] = [];
   for (const group of EXAMPLES) {
-    out.push(`### ${group.heading}`, '');
+    out.push(`## ${group.heading}`, '');
     for (const c of group.commands) {
       const reply = await handle(c, ctx);
-      out.push('```', `$ npx shiftprobe "${c}"`, renderText(reply, { width: 92 }), '```', '');
+      out.push('```', `$ shiftprobe "${c}"`, renderText(reply, { width: 92 }), '```', '');
     }
   }
-  out.push('### JSON (`--json`)', '');
+  out.push('## JSON (`--json`)', '');
   for (const c of JSON_EXAMPLES) {
     const reply = await handle(c, ctx);
-    out.push('```json', `// npx shiftprobe --json "${c}"`, renderJson(reply), '```', '');
+    out.push('```json', `// shiftprobe --json "${c}"`, renderJson(reply), '```', '');
   }
-  const readme = readFileSync('README.md', 'utf8');
-  const begin = '<!-- examples:begin -->';
-  const end = '<!-- examples:end -->';
-  const a = readme.indexOf(begin);
-  const b = readme.indexOf(end);
-  if (a < 0 || b < a) throw new Error('README.md has no examples markers');
-  writeFileSync('README.md', readme.slice(0, a + begin.length) + '\n' + out.join('\n') + readme.slice(b));
+  replaceBetweenMarkers('docs/examples.md', out.join('\n'));
+  // The README's few, from a fresh store and ids (the same text a new user sees).
+  let m = 0;
+  const fresh = { ...ctx, lots: demoLots(now).service, newId: () => `r-${(++m).toString(16).padStart(6, '0')}`, results: new MemoryResultStore(), session: {} };
+  const short: string[] = [];
+  for (const c of README_EXAMPLES) {
+    const reply = await handle(c, fresh);
+    short.push('```', `$ shiftprobe "${c}"`, renderText(reply, { width: 92 }), '```', '');
+  }
+  replaceBetweenMarkers('README.md', short.join('\n'));
 }
 
 await main();

@@ -1,7 +1,7 @@
 /**
  * The composition root, behind `npx shiftprobe` and `npm start`:
  *   shiftprobe "<command>"          one reply as text (exit 2 on bad input)
- *   shiftprobe --json "<command>"   one reply as a JSON object (the contract in README.md)
+ *   shiftprobe --json "<command>"   one reply as a JSON object (the contract: docs/json-contract.md)
  *   shiftprobe --serve              every configured surface (Slack…), otherwise the local console
  *   shiftprobe                      (no command) the same
  *   shiftprobe --backup <file>      an online copy of the SQLite database (safe while it runs)
