@@ -67,7 +67,7 @@ describe.each(DRIVERS)('on %s', (driver) => {
     });
 
     it('a type reading against the product type: hot probe positive on a p-type product is a mismatch', async () => {
-      // Hot probe on the meter's + terminal: n-type reads positive (REFERENCES.md, textbook convention).
+      // Hot probe on the meter's + terminal: n-type reads positive (docs/references.md, textbook convention).
       const r = await record({
         lotId: 'LOT-A17',
         wafer: 5,
@@ -116,7 +116,7 @@ describe.each(DRIVERS)('on %s', (driver) => {
 
     it('a conversion outside the model validity raises a model flag', async () => {
       // FZ-3K0N is phosphorus 2500–3500 Ω·cm; ASTM F723 phosphorus is stated for 2e-4 to 4000 Ω·cm
-      // (REFERENCES.md, F723 scope). 6000 Ω·cm is outside both the window and the model.
+      // (docs/references.md, F723 scope). 6000 Ω·cm is outside both the window and the model.
       const r = await record({ lotId: 'LOT-F2', wafer: 1, productId: 'FZ-3K0N', primary: rho(6000) });
       const codes = r.outcome.raised.map((f) => f.code).sort();
       expect(codes).toEqual(['out_of_window', 'outside_model_validity']);
@@ -134,7 +134,7 @@ describe.each(DRIVERS)('on %s', (driver) => {
     });
 
     it('a reading off 23 °C is corrected to 23 °C before the check (model estimate, said so)', async () => {
-      // Lightly doped Si rises by roughly 0.7–0.8 %/K near room temperature (REFERENCES.md,
+      // Lightly doped Si rises by roughly 0.7–0.8 %/K near room temperature (docs/references.md,
       // "Temperature of the reading": lattice scattering; model estimate). So 12.05 Ω·cm read at
       // 25 °C is about 1.5 % lower at 23 °C: inside the 12.0 maximum although the raw value is not.
       const r = await record({ lotId: 'LOT-A17', wafer: 1, productId: 'HX-200P', primary: rho(12.05), temperatureK: 298.15 });

@@ -2,7 +2,7 @@
  * Dopant ionization energies (energy below the conduction band edge for donors, above the
  * valence band edge for acceptors) and ground-state degeneracy factors.
  *
- * Silicon [V across several textbooks; see shared/REFERENCES.md], as charted e.g. in S. M. Sze,
+ * Silicon [V across several textbooks; see docs/references.md], as charted e.g. in S. M. Sze,
  *   K. K. Ng, Physics of Semiconductor Devices, 3rd ed. (Wiley, 2007), ch. 1:
  *   P 45 meV, As 54 meV (49 in some), Sb 39 meV, B 45 meV.
  * Germanium: FROM MEMORY, not confirmed against a retrieved source (Sze's chart of impurity
@@ -51,7 +51,7 @@ export const IONIZATION_MATERIALS: readonly Material[] = ['Si', 'Ge'];
 export const DONOR_DEGENERACY = 2;
 export const ACCEPTOR_DEGENERACY = 4;
 
-/** Above this density the simple ionization model overstates freeze-out (REFERENCES.md). */
+/** Above this density the simple ionization model overstates freeze-out (docs/references.md). */
 export const IONIZATION_MODEL_LIMIT_PER_CM3 = 1e18;
 
 export function ionizationLevel(material: Material, dopant: Dopant): IonizationLevel | undefined {

@@ -8,7 +8,7 @@
  *   Bell Syst. Tech. J. 37, 711 (1958); values tabulated in NBS Technical Note 199
  *   (L. J. Swartzendruber, 1964). The formula is the exact image solution for a thin disc
  *   (the image of a source at distance a from the centre sits at (d/2)²/a with the same
- *   sign); REFERENCES.md [C]: it reproduces two values quoted from TN 199.
+ *   sign); docs/references.md [C]: it reproduces two values quoted from TN 199.
  *
  * Limits: C → π/ln2 ≈ 4.5324 as d/s → ∞ (infinite sheet). C is undefined for d/s ≤ √3
  * (the outer probes would sit on or beyond the edge): the kernel returns NaN there and the

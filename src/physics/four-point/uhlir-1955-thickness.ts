@@ -17,7 +17,7 @@
  * they agree. Limits: F → 1 as τ → 0 (thin sheet); F·τ → 2·ln2 as τ → ∞, i.e. ρ → 2πs·V/I
  * (semi-infinite bulk, L. B. Valdes, Proc. IRE 42, 420 (1954)).
  *
- * The closed form F ≈ ln2/ln(sinh(τ)/sinh(τ/2)) that textbooks quote (REFERENCES.md) has the
+ * The closed form F ≈ ln2/ln(sinh(τ)/sinh(τ/2)) that textbooks quote (docs/references.md) has the
  * same two limits but is NOT the image solution in between: at τ = 1 it gives 0.852 where the
  * image sum (and Smits's table, recalled from memory: 0.9214) give 0.9215; at τ = 0.725 (a
  * 725 µm wafer under a 1 mm head) 0.93 against 0.98. We use the exact sum, and keep the

@@ -5,7 +5,7 @@
  * Source: N. D. Arora, J. R. Hauser, D. J. Roulston, "Electron and hole mobilities in silicon as
  *   a function of concentration and temperature", IEEE Trans. Electron Devices ED-29, 292–295
  *   (1982), doi:10.1109/T-ED.1982.20698 (DOI from memory). Form and parameters as quoted in a
- *   device-simulator manual (see shared/REFERENCES.md, tag [V]).
+ *   device-simulator manual (see docs/references.md, tag [V]).
  *
  *   μ(N, T) = μmin(T) + μ0(T) / (1 + (N / Nref(T))^α(T)),   Tn = T / 300 K
  *

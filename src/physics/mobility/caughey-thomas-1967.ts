@@ -11,7 +11,7 @@
  * | e       | 65   | 1330 | 8.5e16      | 0.72 |
  * | h       | 47.7 | 495  | 6.3e16      | 0.76 |
  *
- * The form is verified; THE PARAMETER VALUES ARE FROM MEMORY (tag [M] in REFERENCES.md),
+ * The form is verified; THE PARAMETER VALUES ARE FROM MEMORY (tag [M] in docs/references.md),
  * not confirmed against the paper. Replies using this model say so (see `notes`).
  *
  * Electrons serve for P, As and Sb (the 1967 fit does not distinguish donors); holes for B.

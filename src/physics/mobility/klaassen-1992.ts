@@ -8,7 +8,7 @@
  *   doi:10.1016/0038-1101(92)90325-7; "— II. Temperature dependence of carrier mobility and
  *   lifetime", Solid-State Electron. 35, 961–967 (1992), doi:10.1016/0038-1101(92)90326-8
  *   (DOIs from memory). Equations and parameters confirmed against open implementations that
- *   cite the paper's equation and table numbers, and against shared/REFERENCES.md [V].
+ *   cite the paper's equation and table numbers, and against docs/references.md [V].
  *
  * Equations (i = e for electrons, h for holes; T in K; densities in cm⁻³):
  *   1/μ_i = 1/μ_i,L + 1/μ_i,DAh                                  (Matthiessen's rule)
@@ -46,7 +46,7 @@
  *
  * Antimony has no parameter set of its own; it takes the phosphorus set (as the F723 work lets
  * the P conversion serve for Sb). Minority electrons with no donor named take the As set, the
- * default of REFERENCES.md.
+ * default of docs/references.md.
  *
  * Validity: the 300 K concentration dependence is fitted to majority and minority data up to
  * ~1e21 cm⁻³ (clustering term) [paper, I]. Temperature: an open implementation quoting the

@@ -4,7 +4,7 @@
  * Source: G. Masetti, M. Severi, S. Solmi, "Modeling of carrier mobility against carrier
  *   concentration in arsenic-, phosphorus-, and boron-doped silicon", IEEE Trans. Electron
  *   Devices ED-30, 764–769 (1983), doi:10.1109/T-ED.1983.21207, Table I (parameters as quoted
- *   by a device-simulator manual; see /work/shared/REFERENCES.md).
+ *   by a device-simulator manual; see docs/references.md).
  *
  *   electrons (P, As): μ = μ0 + (μmax − μ0)/(1 + (N/Cr)^α) − μ1/(1 + (Cs/N)^β)
  *   holes (B):         μ = μ0·exp(−Pc/N) + μmax/(1 + (N/Cr)^α) − μ1/(1 + (Cs/N)^β)

@@ -2,7 +2,7 @@
  * ASTM F723's phosphorus conversion applied to arsenic and antimony.
  *
  * ASTM F723-99 states that its phosphorus conversion may serve for As- and Sb-doped silicon
- * except near solid solubility [V scope, see REFERENCES.md]; we apply it up to 1e19 cm⁻³ and
+ * except near solid solubility [V scope, see docs/references.md]; we apply it up to 1e19 cm⁻³ and
  * warn above. (The standard's separate arsenic conversion for 1e19–6e20 cm⁻³ was not
  * retrieved and is not invented here: heavily As-doped silicon uses Masetti by default.)
  * Equations, coefficients and citation: src/physics/resistivity/astm-f723.ts.

@@ -63,7 +63,7 @@ describe('record: pass or which flag', () => {
 
   it('a hot-probe reading of the wrong sign on an n-type product is a type mismatch', async () => {
     const { ctx } = setup();
-    // Hot probe on the meter's + terminal: n-type reads positive (REFERENCES.md, textbook convention); −0.8 mV is p.
+    // Hot probe on the meter's + terminal: n-type reads positive (docs/references.md, textbook convention); −0.8 mV is p.
     const r = ok(await handle('record LOT-B204 w6 type hot -0.8mV', ctx));
     expect(value(r, 'carrierType')).toBe('p');
     expect(r.title).toContain('type mismatch');

@@ -107,7 +107,7 @@ describe('carriers at temperature: charge neutrality with incomplete ionization'
     }
   });
 
-  // REFERENCES.md: the simple model overstates freeze-out above ~1e18 cm⁻³; degenerate when E_F
+  // docs/references.md: the simple model overstates freeze-out above ~1e18 cm⁻³; degenerate when E_F
   // is within 3 kT of a band edge (common practice, no source for the exact 3 kT).
   it('warns above 1e18 cm⁻³ and when degenerate (5e19 P at 300 K); not for 1e16', () => {
     const heavy = solved({ dopants: [{ dopant: 'phosphorus', densityPerCm3: 5e19 }], temperatureK: 300 });

@@ -7,7 +7,7 @@ import {
 } from '../../../src/physics/carriers/ionization-energies.js';
 
 describe('dopant ionization energies', () => {
-  // Source: textbook values in Si (shared/REFERENCES.md [V], e.g. Sze & Ng 2007 ch. 1):
+  // Source: textbook values in Si (docs/references.md [V], e.g. Sze & Ng 2007 ch. 1):
   // P 45, As 54, Sb 39, B 45 meV. Exact (the table is these numbers).
   it('holds the textbook silicon levels: P 45, As 54, Sb 39, B 45 meV', () => {
     expect(ionizationLevel('Si', 'phosphorus')?.ionizationEnergyEv).toBe(0.045);
@@ -22,7 +22,7 @@ describe('dopant ionization energies', () => {
     expect(ionizationLevel('GaAs', 'phosphorus')).toBeUndefined();
   });
 
-  // Source: REFERENCES.md [V]: g_D = 2, g_A = 4; the simple model overstates freeze-out above ~1e18.
+  // Source: docs/references.md [V]: g_D = 2, g_A = 4; the simple model overstates freeze-out above ~1e18.
   it('uses g_D = 2, g_A = 4 and warns above 1e18 cm⁻³', () => {
     expect(DONOR_DEGENERACY).toBe(2);
     expect(ACCEPTOR_DEGENERACY).toBe(4);

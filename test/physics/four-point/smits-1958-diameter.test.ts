@@ -14,7 +14,7 @@ describe('diameter correction C(d/s), centred probe on a thin disc (Smits 1958)'
     expect(diameterCorrectionFactor(3)).toBeWithinRelative(Math.PI / (2 * Math.LN2), 1e-14);
   });
   // Source: NBS Technical Note 199 (Swartzendruber 1964) / Smits 1958 table for circular slices
-  // (values from memory, four decimals; REFERENCES.md says the formula reproduces two values
+  // (values from memory, four decimals; docs/references.md says the formula reproduces two values
   // quoted from TN 199, not which). Tolerance 2e-4 relative: a recalled fourth decimal.
   it('matches the tabulated circular-slice factors (NBS TN 199 / Smits 1958, values from memory)', () => {
     const table: Array<[number, number]> = [

@@ -47,7 +47,7 @@ describe('thickness correction F(t/s), insulating bottom (Uhlir 1955 images)', (
       expect(thicknessFactorBesselSeries(ts)).toBeWithinRelative(thicknessFactorImageSeries(ts, 20000), 1e-6);
     }
   });
-  // Finding: the closed form ln2/ln(sinh(t/s)/sinh(t/2s)) quoted in REFERENCES.md has the right
+  // Finding: the closed form ln2/ln(sinh(t/s)/sinh(t/2s)) quoted in docs/references.md has the right
   // limits but not the image solution in between (0.852 vs 0.921 at t/s = 1).
   it('closed form ln2/ln(sinh(t/s)/sinh(t/2s)) shares the limits but departs in between', () => {
     expect(thicknessCorrectionFactorClosedForm(1e-4)).toBeWithinRelative(1, 1e-4);

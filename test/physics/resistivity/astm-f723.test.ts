@@ -28,7 +28,7 @@ describe('ASTM F723 (Thurber) conversions', () => {
     );
   });
   // Source: ASTM F723-99: within 4.5 % for phosphorus over 2e-4–4000 Ω·cm.
-  // Finding: with the coefficients of REFERENCES.md (tag [C]) the round trip holds 4.5 % over
+  // Finding: with the coefficients of docs/references.md (tag [C]) the round trip holds 4.5 % over
   // 2.05e-4–4000 Ω·cm but reaches 4.74 % at the very bottom, 2.00–2.03e-4 Ω·cm (N ≈ 5.5e20,
   // where ρ(N) is steepest). Likely rounding of a published coefficient; not resolvable without
   // the standard's text. So: 4.5 % over 2.05e-4–4000, and 5 % (the figure plus the observed
@@ -51,7 +51,7 @@ describe('ASTM F723 (Thurber) conversions', () => {
     }
   });
   // The boron kernels write the coefficients as literals for speed: they must equal the table
-  // `why` shows (ASTM F723-99 coefficients, REFERENCES.md). Tight, 1e-14.
+  // `why` shows (ASTM F723-99 coefficients, docs/references.md). Tight, 1e-14.
   it('boron kernels use exactly the tabulated F723 coefficients', () => {
     const { rhoToN: a, nToRho: b } = F723_BORON;
     for (const rho of [1e-4, 0.013, 1, 8.2, 1e4]) {

@@ -1,7 +1,7 @@
 /**
  * The NIST StRD "Thurber" dataset (fixtures/nist-strd-thurber.csv) against ASTM F723.
  *
- * Interpretation (ours, see fixtures/README.md and REFERENCES.md): x = log10(ρ / Ω·cm) and
+ * Interpretation (ours, see fixtures/README.md and docs/references.md): x = log10(ρ / Ω·cm) and
  * y = electron mobility (cm²/V·s) in phosphorus-doped silicon, so N = 1/(q·ρ·μ). The
  * tolerance is F723's 4.5 % for phosphorus (ASTM F723-99).
  *

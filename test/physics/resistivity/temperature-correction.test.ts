@@ -22,7 +22,7 @@ const refusal = (req: TemperatureCorrectionRequest) => {
 describe('resistivity readings taken off 23 °C', () => {
   // Textbook behaviour of lightly doped Si (lattice scattering, μ ∝ T^−2.2…−2.4): resistivity rises
   // by roughly 0.7–0.8 %/K near room temperature. Source kind: textbook statement, restated as a
-  // model estimate in shared/REFERENCES.md; no standard's table retrieved. Band 0.65–0.85 %/K: the
+  // model estimate in docs/references.md; no standard's table retrieved. Band 0.65–0.85 %/K: the
   // textbook range widened by the two models' own spread (Klaassen vs Arora differ by ~0.07 %/K).
   it('gives lightly doped Si (10–3000 Ω·cm, B and P) a coefficient of about +0.7–0.8 %/K at 18–37 °C', () => {
     for (const model of ['klaassen-1992', 'arora-1982']) {

@@ -34,7 +34,7 @@ describe('hot and cold probe', () => {
     expect(typeOf({ method: 'hot', reading: 5e-4, noiseBandV: 1e-5 }).carrierType).toBe('n');
   });
   // Source: ASTM F42 (SEMI MF42) scope: thermal EMF dependable up to 1000 Ω·cm in Si; cold probe
-  // in Ge up to 20 Ω·cm. REFERENCES.md: near-intrinsic Si may read n on a thermal probe.
+  // in Ge up to 20 Ω·cm. docs/references.md: near-intrinsic Si may read n on a thermal probe.
   it('cautions above 1000 Ω·cm in Si (ASTM F42) and that high-resistivity Si may read n', () => {
     const v = typeOf({ method: 'hot', reading: -3e-3, resistivityOhmCm: 2500 });
     expect(v.problems).toContainEqual(expect.objectContaining({ code: 'method_range', max: 1000, standard: expect.stringMatching(/F42/) }));

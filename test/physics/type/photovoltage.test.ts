@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { carrierTypeFromReading } from '../../../src/physics/type/classify.js';
 
 describe('surface photovoltage sign', () => {
-  // Derived (REFERENCES.md): illumination flattens the upward band bending of a depleted n-type
+  // Derived (docs/references.md): illumination flattens the upward band bending of a depleted n-type
   // surface, so the surface potential moves positive on n-type.
   it('positive SPV reads n-type, negative p-type; 1 mV default band', () => {
     const n = carrierTypeFromReading({ method: 'spv', reading: 0.015 });
