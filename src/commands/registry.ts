@@ -13,6 +13,8 @@ import { typeCommand } from './type.js';
 import { carriersCommand } from './carriers.js';
 import { crossoverCommand } from './crossover.js';
 import { layerCommand } from './layer.js';
+import { hallCommand } from './hall.js';
+import { vdpCommand } from './vdp.js';
 import { whyCommand } from './why.js';
 import { clearCommand } from './lots/clear.js';
 import { digestCommand } from './lots/digest.js';
@@ -29,6 +31,8 @@ export const COMMANDS: readonly CommandSpec<any>[] = [
   carriersCommand,
   crossoverCommand,
   layerCommand,
+  hallCommand,
+  vdpCommand,
   recordCommand,
   lotCommand,
   flagsCommand,

@@ -20,6 +20,8 @@ export type Dimension =
   | 'voltage'
   | 'current'
   | 'hallCoefficient'
+  | 'resistance'
+  | 'magneticField'
   | 'temperatureCoefficient';
 
 /** How each dimension is named to people, its canonical unit, and a typed example. */
@@ -34,6 +36,8 @@ export const DIMENSIONS: Readonly<
   voltage: { name: 'a voltage', canonical: 'V', example: '-1.2mV' },
   current: { name: 'a current', canonical: 'A', example: '1mA' },
   hallCoefficient: { name: 'a Hall coefficient', canonical: 'cm³/C', example: '-1.3e3 cm3/C' },
+  resistance: { name: 'a resistance', canonical: 'Ω', example: '12.4 ohm' },
+  magneticField: { name: 'a magnetic field', canonical: 'T', example: '0.5T or 5kG' },
   temperatureCoefficient: { name: 'a temperature coefficient', canonical: '%/K', example: '0.75%/K' },
 };
 
@@ -158,6 +162,12 @@ function readUnitUncached(unitText: string, expected?: Dimension): UnitReading |
   if (/^\s*M\s*OHM/.test(unitText) && !/[a-z]/.test(unitText)) {
     return { error: `"${unitText}": milliohm or megaohm? Write mΩ (milli) or MΩ (mega), e.g. 3.3 mohm-cm`, ambiguous: true };
   }
+  // Tesla before the capitals are normalised (a lone t would read as a tonne).
+  const tesla = /^\s*(m|µ|u)?(?:T|tesla|teslas)\s*$/i.exec(unitText);
+  if (tesla && /T|tesla/.test(unitText) && (expected === 'magneticField' || expected === undefined)) {
+    const scale = tesla[1] ? (tesla[1] === 'm' ? 1e-3 : 1e-6) : 1;
+    return { dimension: 'magneticField', convert: (n) => n * scale, display: `${tesla[1] === 'm' ? 'm' : tesla[1] ? 'µ' : ''}T` };
+  }
   const u = normaliseUnitText(unitText);
   const sheet = SHEET.exec(u);
   if (sheet) {
@@ -170,12 +180,21 @@ function readUnitUncached(unitText: string, expected?: Dimension): UnitReading |
     if (expected === 'resistivity') {
       return { dimension: 'resistivity', convert: (n) => n, display: 'Ω·cm', note: (n) => `"${n} ${unitText}" read as ${n} Ω·cm (a resistivity); give the unit as ohm-cm to be exact.` };
     }
+    if (expected === 'resistance') {
+      return { dimension: 'resistance', convert: (n) => n, display: 'Ω' };
+    }
     if (expected === 'sheetResistance') {
       return { dimension: 'sheetResistance', convert: (n) => n, display: 'Ω/□', note: (n) => `"${n} ${unitText}" read as ${n} Ω/□ (a sheet resistance); give the unit as ohm/sq to be exact.` };
     }
     return { error: `"${unitText}" alone could be a resistivity (ohm-cm) or a sheet resistance (ohm/sq)`, ambiguous: true };
   }
   if (DENSITY.test(u)) return { dimension: 'density', convert: (n) => n, display: 'cm⁻³' };
+  // Gauss is not a mathjs unit; tesla is (T, mT).
+  const gauss = /^(k|m)?(?:G|gauss)$/.exec(u);
+  if (gauss && (expected === 'magneticField' || expected === undefined)) {
+    const scale = gauss[1] === 'k' ? 1e-1 : gauss[1] === 'm' ? 1e-7 : 1e-4;
+    return { dimension: 'magneticField', convert: (n) => n * scale, display: `${gauss[1] ?? ''}G` };
+  }
   const tc = TC.exec(u);
   if (tc) {
     const scale = tc[1] === '%' ? 1e-2 : 1e-6;
@@ -227,6 +246,8 @@ const CANONICAL_MATHJS: readonly (readonly [Dimension, string])[] = [
   ['voltage', 'V'],
   ['current', 'A'],
   ['hallCoefficient', 'cm^3/C'],
+  ['resistance', 'ohm'],
+  ['magneticField', 'T'],
 ];
 
 export type QuantityParse =

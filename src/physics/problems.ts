@@ -33,6 +33,8 @@ export type Problem =
   | { code: 'intrinsic_regime'; intrinsicDensityPerCm3: number; netDopingPerCm3: number }
   /** Issue 5: a quantity the core computes for some materials only (e.g. resistivity: Si only). */
   | { code: 'quantity_not_covered'; quantity: string; material: string; covered: readonly string[] }
+  /** van der Pauw: the two resistances differ by this ratio or more; contact placement errors weigh more. */
+  | { code: 'contact_asymmetry'; ratio: number; limit: number }
   | { code: 'other'; message: string };
 
 export type ProblemCode = Problem['code'];

@@ -64,6 +64,8 @@ export function problemMessage(p: Problem): string {
       return `The often-quoted ${formatNumber(p.outdated)} cm⁻³ for the ${nameOf(p.quantity)} is outdated; the current value is ${formatNumber(p.current)} cm⁻³ (${p.source}).`;
     case 'geometry_limit':
       return `The ${p.factor} correction is outside its useful range (ratio ${formatNumber(p.ratio)}, needs at least ${formatNumber(p.min)}).`;
+    case 'contact_asymmetry':
+      return `The two van der Pauw resistances differ by a factor ${formatNumber(p.ratio, { sigFigs: 3 })} (≥ ${formatNumber(p.limit)}): the method still holds, but errors in contact size and placement weigh more; check the contacts and the sample's symmetry.`;
     case 'ionization_model_limit':
       return `At ${formatNumber(p.dopantDensityPerCm3)} cm⁻³ (above ~${formatNumber(p.limitPerCm3)} cm⁻³) the simple ionization model overstates freeze-out: the ionization energy falls with density and the levels merge into a band, so the real ionized fraction is higher than shown.`;
     case 'degenerate':

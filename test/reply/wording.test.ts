@@ -23,6 +23,7 @@ const PROBLEMS: { [C in ProblemCode]: Extract<Problem, { code: C }> } = {
   mixed_conduction: { code: 'mixed_conduction', method: 'hall' },
   outdated_value: { code: 'outdated_value', quantity: 'intrinsicDensityPerCm3', outdated: 1.45e10, current: 9.65e9, source: 'Altermatt 2003' },
   geometry_limit: { code: 'geometry_limit', factor: 'diameter', ratio: 1.9, min: 3 },
+  contact_asymmetry: { code: 'contact_asymmetry', ratio: 4.2, limit: 3 },
   method_not_covered: { code: 'method_not_covered', method: 'point', material: 'Ge', standard: 'ASTM F42' },
   ionization_model_limit: { code: 'ionization_model_limit', dopantDensityPerCm3: 5e18, limitPerCm3: 1e18 },
   degenerate: { code: 'degenerate', band: 'conduction', separationKT: 1.2, limitKT: 3 },
