@@ -24,6 +24,8 @@ const EXAMPLES: readonly { heading: string; commands: readonly string[]; json?: 
   { heading: 'Carriers at a temperature (`carriers`)', commands: ['carriers 1e15 boron at 150C', 'carriers 1e16 B and 3e15 P at 300K'] },
   { heading: 'Where the material turns intrinsic (`crossover`)', commands: ['crossover 1e15 boron'] },
   { heading: 'Diffused layers, Irvin\'s method (`layer`)', commands: ['layer 45 ohm/sq xj 0.8um erfc on 1e15 p', 'layer Cs 1e19 xj 0.8um gaussian on 1e15 p'] },
+  { heading: 'Hall measurements (`hall`)', commands: ['hall -1.3e3 cm3/C rho 1.1 ohm-cm', 'hall -2.6mV current 1mA field 0.5T thick 500um'] },
+  { heading: 'van der Pauw (`vdp`)', commands: ['vdp 12.4 ohm 11.9 ohm thick 500um p', 'vdp 250 ohm 240 ohm hall -3.1mV current 100uA field 0.5T'] },
   {
     heading: 'Lot readings, flags and the daily summary (`record`, `lot`, `flags`, `clear`, `digest`) — invented demo lots',
     commands: [
