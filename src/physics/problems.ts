@@ -33,6 +33,11 @@ export type Problem =
   | { code: 'intrinsic_regime'; intrinsicDensityPerCm3: number; netDopingPerCm3: number }
   /** Issue 5: a quantity the core computes for some materials only (e.g. resistivity: Si only). */
   | { code: 'quantity_not_covered'; quantity: string; material: string; covered: readonly string[] }
+  /**
+   * A reading corrected to the reference from far away, or by much: the size of the correction
+   * and the model, and the range within which a model-based correction is trusted.
+   */
+  | { code: 'large_temperature_correction'; temperatureK: number; referenceK: number; changePercent: number; model: string; trustedWithinK: number }
   /** van der Pauw: the two resistances differ by this ratio or more; contact placement errors weigh more. */
   | { code: 'contact_asymmetry'; ratio: number; limit: number }
   | { code: 'other'; message: string };

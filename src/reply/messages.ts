@@ -64,6 +64,10 @@ export function problemMessage(p: Problem): string {
       return `The often-quoted ${formatNumber(p.outdated)} cm⁻³ for the ${nameOf(p.quantity)} is outdated; the current value is ${formatNumber(p.current)} cm⁻³ (${p.source}).`;
     case 'geometry_limit':
       return `The ${p.factor} correction is outside its useful range (ratio ${formatNumber(p.ratio)}, needs at least ${formatNumber(p.min)}).`;
+    case 'large_temperature_correction': {
+      const dT = p.temperatureK - p.referenceK;
+      return `The reading was taken ${formatNumber(Math.abs(dT), { sigFigs: 3 })} K ${dT > 0 ? 'above' : 'below'} ${formatNumber(p.referenceK - 273.15, { sigFigs: 3 })} °C and the correction changes it by ${p.changePercent > 0 ? '+' : ''}${formatNumber(p.changePercent, { sigFigs: 2 })} % (${p.model}). A correction like this is trusted within about ±${formatNumber(p.trustedWithinK)} K of the reference and under 10 % (common practice, no source): re-measure near ${formatNumber(p.referenceK - 273.15, { sigFigs: 3 })} °C, or use your procedure's coefficient, before acting on it.`;
+    }
     case 'contact_asymmetry':
       return `The two van der Pauw resistances differ by a factor ${formatNumber(p.ratio, { sigFigs: 3 })} (≥ ${formatNumber(p.limit)}): the method still holds, but errors in contact size and placement weigh more; check the contacts and the sample's symmetry.`;
     case 'ionization_model_limit':

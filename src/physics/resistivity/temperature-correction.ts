@@ -34,6 +34,20 @@ import { resistivityAtTemperature } from './resistivity-at-temperature.js';
 export const DEFAULT_TEMPERATURE_CORRECTION_MODEL_ID = 'klaassen-1992';
 /** Step of the central difference for the local coefficient, K. */
 export const COEFFICIENT_STEP_K = 0.5;
+/**
+ * A model-based (or linear) correction is trusted within this distance of the reference (23 °C ±
+ * 10 K), and for changes below TRUSTED_CHANGE; beyond either the reply says how large the
+ * correction is and from which model (common practice, no source: there the measurement's own
+ * temperature uncertainty no longer dominates the model's).
+ */
+export const TRUSTED_WITHIN_K = 10;
+export const TRUSTED_CHANGE = 0.1;
+
+function sizeWarning(T: number, tRef: number, factor: number, model: string): Problem[] {
+  if (Math.abs(T - tRef) <= TRUSTED_WITHIN_K && Math.abs(factor - 1) < TRUSTED_CHANGE) return [];
+  return [{ code: 'large_temperature_correction', temperatureK: T, referenceK: tRef, changePercent: (factor - 1) * 100, model, trustedWithinK: TRUSTED_WITHIN_K }];
+}
+
 /** Readings outside this range are refused: no silicon reading is taken there. */
 export const READING_DOMAIN_TEMPERATURE_K: Range = { min: 200, max: 600 };
 /** Upper end of the density search, log10 cm⁻³. */
@@ -122,7 +136,10 @@ export function correctResistivityToReference(req: TemperatureCorrectionRequest)
       correctionFactor: corrected / rho,
       coefficientSource: 'user',
       dopant: req.dopant,
-      problems: [{ code: 'estimate_only', model: 'linear-coefficient', reason: 'the coefficient given is applied linearly, ρ_ref = ρ/(1 + α·ΔT); confirm it against the fab’s procedure' }],
+      problems: [
+        { code: 'estimate_only', model: 'linear-coefficient', reason: 'the coefficient given is applied linearly, ρ_ref = ρ/(1 + α·ΔT); confirm it against the fab’s procedure' },
+        ...sizeWarning(T, tRef, corrected / rho, 'your coefficient, applied linearly'),
+      ],
       assumptionCodes: ['tc_linear_user'],
     });
   }
@@ -191,6 +208,7 @@ export function correctResistivityToReference(req: TemperatureCorrectionRequest)
     ...outside('referenceTemperatureK', tRef, tRange, model.id),
     ...outside('dopantDensityPerCm3', N, model.validityDensityPerCm3[req.dopant], model.id),
     ...outside('temperatureK', T, intrinsic.validityTemperatureKFor?.('Si') ?? intrinsic.validityTemperatureK, intrinsic.id),
+    ...sizeWarning(T, tRef, corrected / rho, model.name),
   ];
   return ok({
     measuredResistivityOhmCm: rho,

@@ -123,3 +123,20 @@ describe('resistivity readings taken off 23 °C', () => {
     expect(r.problems).toContainEqual(expect.objectContaining({ code: 'outside_validity', quantity: 'temperatureK', model: 'arora-1982' }));
   });
 });
+
+describe('the size of a correction is said when it is large', () => {
+  it('at 100 °C (a change of about −40 %) the reply names the change and the model; at 25 °C it does not (thresholds: ±10 K and 10 %, common practice, no source)', async () => {
+    const { correctResistivityToReference } = await import('../../../src/physics/resistivity/temperature-correction.js');
+    const far = correctResistivityToReference({ resistivityOhmCm: 8.2, temperatureK: 373.15, dopant: 'boron' });
+    const warn = far.ok ? far.value.problems.find((p) => p.code === 'large_temperature_correction') : undefined;
+    expect(warn).toBeDefined();
+    if (far.ok && warn && warn.code === 'large_temperature_correction') {
+      expect(warn.changePercent).toBeCloseTo((far.value.correctionFactor - 1) * 100, 10);
+      expect(warn.changePercent).toBeLessThan(-30); // lightly doped Si: ≈ 0.5–0.8 %/K over 77 K (docs/references.md)
+    }
+    const near = correctResistivityToReference({ resistivityOhmCm: 8.2, temperatureK: 298.15, dopant: 'boron' });
+    expect(near.ok && near.value.problems.some((p) => p.code === 'large_temperature_correction')).toBe(false);
+    const yours = correctResistivityToReference({ resistivityOhmCm: 8.2, temperatureK: 333.15, dopant: 'boron', coefficientPerK: 0.0075 });
+    expect(yours.ok && yours.value.problems.some((p) => p.code === 'large_temperature_correction')).toBe(true);
+  });
+});
