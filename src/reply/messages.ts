@@ -128,6 +128,7 @@ const ASSUMPTIONS: Record<string, string> = {
   crossover_definition: 'Crossover: the temperature where n_i equals the net doping.',
   equilibrium: 'Thermal equilibrium, no light or injection.',
   incomplete_ionization: 'Dopant ionization computed (incomplete ionization), not assumed complete.',
+  freeze_out_band_edges: 'Below the n_i fit’s measured range the band edges come from Nc(T), Nv(T) (Green 1990) and Eg(T) (Thurmond 1975) directly, scaled to the fit at the bottom of its range, not from the fit’s extrapolation.',
   boltzmann_statistics: 'Boltzmann statistics for the carriers (non-degenerate).',
   dopant_degeneracy_2_4: 'Dopant degeneracy factors 2 (donors) and 4 (acceptors).',
   mobility_ionized_impurities: 'Mobility evaluated at the total ionized-impurity density.',

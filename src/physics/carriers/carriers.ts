@@ -16,6 +16,7 @@
  */
 import { BANDGAP_VALIDITY_TEMPERATURE_K, bandgapEv } from '../bandgap/varshni-thurmond-1975.js';
 import { BOLTZMANN_EV_PER_K, ELEMENTARY_CHARGE_C } from '../constants.js';
+import { densityOfStatesIntrinsicPerCm3 } from '../intrinsic/density-of-states.js';
 import { defaultIntrinsicModel, findIntrinsicModel, INTRINSIC_MODELS } from '../intrinsic/registry.js';
 import type { IntrinsicModel } from '../intrinsic/intrinsic-model.js';
 import { conductionBandDensityPerCm3, DENSITY_OF_STATES, valenceBandDensityPerCm3 } from '../materials.js';
@@ -182,7 +183,14 @@ export function carriersAtTemperature(req: CarriersRequest): Outcome<CarriersRes
     }
   }
 
-  const ni = intrinsic.value.intrinsicDensityPerCm3(material, T);
+  // Below the n_i fit's measured range (deep freeze-out) the band edges come from Nc(T), Nv(T)
+  // and Eg(T) directly — n_i = √(Nc·Nv)·exp(−Eg/2kT) — scaled to the fit at the bottom of its
+  // range, instead of the fit's extrapolation (which put 1e16 P at 30 K 38 % too ionized).
+  const fitRange = intrinsic.value.validityTemperatureKFor?.(material) ?? intrinsic.value.validityTemperatureK;
+  const belowFit = T < fitRange.min && intrinsic.value.id !== 'density-of-states';
+  const ni = belowFit
+    ? densityOfStatesIntrinsicPerCm3(material, T) * (intrinsic.value.intrinsicDensityPerCm3(material, fitRange.min) / densityOfStatesIntrinsicPerCm3(material, fitRange.min))
+    : intrinsic.value.intrinsicDensityPerCm3(material, T);
   const eg = bandgapEv(material, T);
   const nc = conductionBandDensityPerCm3(material, T);
   const nv = valenceBandDensityPerCm3(material, T);
@@ -201,7 +209,7 @@ export function carriersAtTemperature(req: CarriersRequest): Outcome<CarriersRes
     return refuse({ code: 'no_solution', quantity: 'fermiLevelEv', model: 'charge-neutrality', status: sol.status });
   }
 
-  problems.push(...bandModelProblems(material, T, intrinsic.value));
+  problems.push(...(belowFit ? bandModelProblems(material, T, intrinsic.value).filter((p) => p.code !== 'outside_validity' || p.model !== intrinsic.value.id) : bandModelProblems(material, T, intrinsic.value)));
   problems.push(...outside('temperatureK', T, DENSITY_OF_STATES[material].validityTemperatureK, 'density-of-states'));
 
   const kT = BOLTZMANN_EV_PER_K * T;
@@ -264,6 +272,7 @@ export function carriersAtTemperature(req: CarriersRequest): Outcome<CarriersRes
     'incomplete_ionization',
     'boltzmann_statistics',
     'dopant_degeneracy_2_4',
+    ...(belowFit ? ['freeze_out_band_edges'] : []),
     ...(resistivity.resistivityOhmCm !== undefined ? ['mobility_ionized_impurities'] : []),
   ];
 

@@ -121,10 +121,12 @@ describe('carriers at temperature: charge neutrality with incomplete ionization'
     expect(codes(light)).not.toContain('degenerate');
   });
 
-  it('warns where a fit is outside its range (77 K: n_i fit, mobility fit, Nc/Nv scaling)', () => {
+  it('warns where a fit is outside its range (77 K: mobility fit, Nc/Nv scaling); below the n_i fit’s range it uses the band edges and says so instead of extrapolating the fit', () => {
     const r = solved({ dopants: [{ dopant: 'phosphorus', densityPerCm3: 1e15 }], temperatureK: 77 });
     const models = r.problems.filter((p) => p.code === 'outside_validity').map((p) => (p as { model: string }).model);
-    expect(models).toEqual(expect.arrayContaining(['misiakos-tsamakis-1993', 'klaassen-1992', 'density-of-states']));
+    expect(models).toEqual(expect.arrayContaining(['klaassen-1992', 'density-of-states']));
+    expect(models).not.toContain('misiakos-tsamakis-1993');
+    expect(r.assumptionCodes).toContain('freeze_out_band_edges');
   });
 
   it('covers Ge with unverified (from memory) levels and no resistivity; refuses GaAs', () => {
