@@ -125,8 +125,13 @@ export const carriersCommand = defineCommand<CarriersRequest>({
     const assumptions = [
       ...(req.defaulted ? ['No temperature given: 300 K.'] : []),
       ...req.dopants.filter((d) => d.bareNumber).map((d) => `No unit given: ${d.densityAsTyped} read as cm⁻³.`),
-      ...r.assumptionCodes.map(assumptionText),
+      ...r.assumptionCodes.filter((c) => c !== 'resistivity_anchored_23C').map(assumptionText),
       `n_i from ${r.intrinsicModel.name}${r.mobilityModel ? `; mobility from ${r.mobilityModel.name}` : ''}.`,
+      ...(r.resistivityAnchor && r.mobilityModel
+        ? [
+            `Resistivity: ${r.resistivityAnchor.modelName} at 23 °C (${formatNumber(r.resistivityAnchor.resistivityAt23COhmCm)} Ω·cm, as \`doping\` gives), times the change from 23 °C to this temperature by ${r.mobilityModel.name} (which alone would give ${formatNumber(r.resistivityAnchor.mobilityModelAt23COhmCm)} Ω·cm at 23 °C).`,
+          ]
+        : []),
     ];
     const mobilitySource = r.mobilityModel ? [r.mobilityModel.citation] : [];
     return okReply(identity(ctx), {

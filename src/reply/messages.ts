@@ -128,6 +128,7 @@ const ASSUMPTIONS: Record<string, string> = {
   crossover_definition: 'Crossover: the temperature where n_i equals the net doping.',
   equilibrium: 'Thermal equilibrium, no light or injection.',
   incomplete_ionization: 'Dopant ionization computed (incomplete ionization), not assumed complete.',
+  resistivity_anchored_23C: 'Resistivity: the room-temperature conversion `doping` uses, at 23 °C, times the mobility model’s change from 23 °C to this temperature (the mobility model gives only the temperature dependence).',
   freeze_out_band_edges: 'Below the n_i fit’s measured range the band edges come from Nc(T), Nv(T) (Green 1990) and Eg(T) (Thurmond 1975) directly, scaled to the fit at the bottom of its range, not from the fit’s extrapolation.',
   boltzmann_statistics: 'Boltzmann statistics for the carriers (non-degenerate).',
   dopant_degeneracy_2_4: 'Dopant degeneracy factors 2 (donors) and 4 (acceptors).',

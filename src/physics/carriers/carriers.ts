@@ -15,7 +15,8 @@
  * fit is used outside its range.
  */
 import { BANDGAP_VALIDITY_TEMPERATURE_K, bandgapEv } from '../bandgap/varshni-thurmond-1975.js';
-import { BOLTZMANN_EV_PER_K, ELEMENTARY_CHARGE_C } from '../constants.js';
+import { BOLTZMANN_EV_PER_K, ELEMENTARY_CHARGE_C, F723_REFERENCE_TEMPERATURE_K } from '../constants.js';
+import { convertDensityToResistivity } from '../resistivity/convert.js';
 import { densityOfStatesIntrinsicPerCm3 } from '../intrinsic/density-of-states.js';
 import { defaultIntrinsicModel, findIntrinsicModel, INTRINSIC_MODELS } from '../intrinsic/registry.js';
 import type { IntrinsicModel } from '../intrinsic/intrinsic-model.js';
@@ -100,6 +101,12 @@ export interface CarriersResult {
   readonly electronMobilityCm2PerVs?: number;
   readonly holeMobilityCm2PerVs?: number;
   readonly mobilityModel?: MobilityModel;
+  /**
+   * One dopant in Si: the resistivity is the room-temperature conversion `doping` uses (its
+   * model and value at 23 °C), times the mobility model's ratio ρ(T)/ρ(23 °C), so the two
+   * commands agree at 23 °C and the mobility model gives only the temperature dependence.
+   */
+  readonly resistivityAnchor?: { readonly modelId: string; readonly modelName: string; readonly resistivityAt23COhmCm: number; readonly mobilityModelAt23COhmCm: number };
   readonly intrinsicModel: IntrinsicModel;
   readonly problems: readonly Problem[];
   readonly assumptionCodes: readonly string[];
@@ -139,6 +146,26 @@ export function bandModelProblems(material: Material, temperatureK: number, intr
 }
 
 export function carriersAtTemperature(req: CarriersRequest): Outcome<CarriersResult> {
+  const r = carriersUnanchored(req);
+  if (!r.ok || r.value.resistivityOhmCm === undefined || req.dopants.length !== 1 || (req.material ?? 'Si') !== 'Si') return r;
+  // Anchor the resistivity to the conversion `doping` uses at 23 °C (see `resistivityAnchor`).
+  const d = req.dopants[0]!;
+  const conv = convertDensityToResistivity({ dopantDensityPerCm3: d.densityPerCm3, dopant: d.dopant });
+  const ref = carriersUnanchored({ ...req, temperatureK: F723_REFERENCE_TEMPERATURE_K });
+  if (!conv.ok || !ref.ok || ref.value.resistivityOhmCm === undefined) return r;
+  const scale = conv.value.resistivityOhmCm / ref.value.resistivityOhmCm;
+  const v = r.value;
+  return ok({
+    ...v,
+    resistivityOhmCm: v.resistivityOhmCm! * scale,
+    ...(v.electronMobilityCm2PerVs !== undefined ? { electronMobilityCm2PerVs: v.electronMobilityCm2PerVs / scale } : {}),
+    ...(v.holeMobilityCm2PerVs !== undefined ? { holeMobilityCm2PerVs: v.holeMobilityCm2PerVs / scale } : {}),
+    resistivityAnchor: { modelId: conv.value.model.id, modelName: conv.value.model.name, resistivityAt23COhmCm: conv.value.resistivityOhmCm, mobilityModelAt23COhmCm: ref.value.resistivityOhmCm },
+    assumptionCodes: [...v.assumptionCodes, 'resistivity_anchored_23C'],
+  });
+}
+
+function carriersUnanchored(req: CarriersRequest): Outcome<CarriersResult> {
   const material = req.material ?? 'Si';
   const badT = checkPositive('temperatureK', req.temperatureK);
   if (badT) return refuse(badT);

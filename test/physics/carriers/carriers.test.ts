@@ -195,3 +195,19 @@ describe('carriers at temperature: charge neutrality with incomplete ionization'
     );
   });
 });
+
+describe('resistivity at heavy doping agrees with the `doping` conversion', () => {
+  it('at 23 °C `carriers` gives the ASTM F723 resistivity for 1e19 P and 1e20 B (as `doping` does); elsewhere the mobility model gives only the change with temperature', async () => {
+    const { convertDensityToResistivity } = await import('../../../src/physics/resistivity/convert.js');
+    for (const [dopant, n] of [['phosphorus', 1e19], ['boron', 1e20], ['boron', 1e15]] as const) {
+      const c = carriersAtTemperature({ dopants: [{ dopant, densityPerCm3: n }], temperatureK: 296.15 });
+      const d = convertDensityToResistivity({ dopantDensityPerCm3: n, dopant });
+      // ASTM F723-99 is the source of `doping` (docs/references.md); 1e-9: the same number, floating point only.
+      expect(c.ok && c.value.resistivityOhmCm).toBeWithinRelative(d.ok ? d.value.resistivityOhmCm : NaN, 1e-9);
+    }
+    // Lightly doped Si at 100 °C: higher than at 23 °C (lattice scattering; docs/references.md).
+    const hot = carriersAtTemperature({ dopants: [{ dopant: 'boron', densityPerCm3: 1e15 }], temperatureK: 373.15 });
+    const room = carriersAtTemperature({ dopants: [{ dopant: 'boron', densityPerCm3: 1e15 }], temperatureK: 296.15 });
+    expect(hot.ok && room.ok && hot.value.resistivityOhmCm! > room.value.resistivityOhmCm!).toBe(true);
+  });
+});
