@@ -93,6 +93,8 @@ export function refusalMessage(r: Refusal): string {
       return `The ${r.model} model does not cover ${MATERIAL_LABEL[r.material]}; it covers ${r.supported.map((m) => MATERIAL_LABEL[m]).join(', ')}.`;
     case 'outside_domain':
       return `${describeInput(r.quantity, r.input)} is too far outside the ${r.model} model's range (${describeInput(r.quantity, r.min)} to ${describeInput(r.quantity, r.max)}) to extrapolate honestly. Check the reading and its unit.`;
+    case 'above_melting_point':
+      return `${MATERIAL_LABEL[r.material][0]!.toUpperCase()}${MATERIAL_LABEL[r.material].slice(1)} melts at ${formatNumber(r.meltingPointK)} K (${formatNumber(r.meltingPointK - 273.15, { sigFigs: 4 })} °C); at ${formatNumber(r.temperatureK)} K there is no crystal and no intrinsic density to give.`;
     case 'geometry_invalid':
       return `The ${r.factor} correction does not exist for a ratio of ${formatNumber(r.ratio)} (it needs more than ${formatNumber(r.min)}); check the probe spacing and the wafer size.`;
     case 'missing_input':

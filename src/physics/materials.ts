@@ -21,6 +21,9 @@ export interface DensityOfStates {
   readonly validityTemperatureK: Range;
 }
 
+/** Melting points, K (Si 1414 °C, Ge 938 °C, GaAs 1238 °C; handbook values, from memory). */
+export const MELTING_POINT_K: Readonly<Record<Material, number>> = { Si: 1687, Ge: 1211, GaAs: 1511 };
+
 export const DENSITY_OF_STATES: Readonly<Record<Material, DensityOfStates>> = {
   Si: {
     conductionAt300KPerCm3: 2.86e19,

@@ -17,6 +17,8 @@ export type Refusal =
    * finder's bracket, or beyond the melting point). A warning would not be honest there.
    */
   | { code: 'outside_domain'; quantity: string; input: number; min: number; max: number; model: string }
+  /** Above the material's melting point: there is no crystal, so no n_i (Si 1687 K, Ge 1211 K, GaAs 1511 K). */
+  | { code: 'above_melting_point'; material: Material; temperatureK: number; meltingPointK: number }
   /** A geometry for which a correction factor does not exist (e.g. d/s ≤ √3 for Smits's C). */
   | { code: 'geometry_invalid'; factor: string; ratio: number; min: number }
   /** A request that lacks the inputs the computation needs (e.g. neither V and I nor Rs). */

@@ -35,6 +35,7 @@ const PROBLEMS: { [C in ProblemCode]: Extract<Problem, { code: C }> } = {
 };
 
 const REFUSALS: { [C in RefusalCode]: Extract<Refusal, { code: C }> } = {
+  above_melting_point: { code: 'above_melting_point', material: 'Si', temperatureK: 2000, meltingPointK: 1687 },
   nonpositive_input: { code: 'nonpositive_input', quantity: 'resistivityOhmCm', input: -1 },
   not_finite: { code: 'not_finite', quantity: 'dopantDensityPerCm3' },
   unknown_model: { code: 'unknown_model', model: 'foo', known: ['f723', 'masetti-1983'] },

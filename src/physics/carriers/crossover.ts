@@ -20,7 +20,8 @@ import type { Problem } from '../problems.js';
 import { DOPANT_TYPE, type Material, type Range } from '../types.js';
 import { bandModelProblems, type DopantAmount } from './carriers.js';
 
-export const MELTING_POINT_K: Readonly<Record<Material, number>> = { Si: 1687, Ge: 1211, GaAs: 1511 };
+export { MELTING_POINT_K } from '../materials.js';
+import { MELTING_POINT_K } from '../materials.js';
 export const CROSSOVER_LOWEST_K = 20;
 
 export interface CrossoverRequest {

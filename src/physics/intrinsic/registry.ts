@@ -3,6 +3,7 @@
  * Default: Misiakos–Tsamakis for Si (0.5 % from Altermatt 2003's 9.65e9 at 300 K; see its
  * file), the density-of-states form for Ge and GaAs.
  */
+import { MELTING_POINT_K } from '../materials.js';
 import { BANDGAP_VALIDITY_TEMPERATURE_K, bandgapEv } from '../bandgap/varshni-thurmond-1975.js';
 import { conductionBandDensityPerCm3, valenceBandDensityPerCm3 } from '../materials.js';
 import { checkPositive, ok, refuse, type Outcome } from '../outcome.js';
@@ -105,6 +106,9 @@ export function intrinsicDensity(req: {
     model = found;
   } else {
     model = defaultIntrinsicModel(material, temperatureK);
+  }
+  if (temperatureK > MELTING_POINT_K[material]) {
+    return refuse({ code: 'above_melting_point', material, temperatureK, meltingPointK: MELTING_POINT_K[material] });
   }
   const dom = INTRINSIC_DOMAIN_TEMPERATURE_K;
   if (temperatureK < dom.min || temperatureK > dom.max) {

@@ -66,7 +66,7 @@ describe('intrinsicDensity (public API)', () => {
     if (!u.ok) expect(u.refusal.code).toBe('unknown_model');
     const hot = intrinsicDensity({ temperatureK: 5000, material: 'Si' });
     expect(hot.ok).toBe(false);
-    if (!hot.ok) expect(hot.refusal.code).toBe('outside_domain');
+    if (!hot.ok) expect(hot.refusal.code).toBe('above_melting_point');
   });
   it('kernel intrinsicDensityPerCm3 matches the public API and never throws', () => {
     const o = intrinsicDensity({ temperatureK: 350, material: 'Si' });
@@ -90,5 +90,16 @@ describe('intrinsicDensity (public API)', () => {
       ),
       { numRuns: 2000 },
     );
+  });
+});
+
+describe('above the melting point there is no n_i', () => {
+  it('Si above 1687 K, Ge above 1211 K, GaAs above 1511 K are refused (melting points: handbook values, from memory); just below, an answer', async () => {
+    const { intrinsicDensity } = await import('../../../src/physics/intrinsic/registry.js');
+    for (const [material, melt] of [['Si', 1687], ['Ge', 1211], ['GaAs', 1511]] as const) {
+      const above = intrinsicDensity({ material, temperatureK: melt + 1 });
+      expect(!above.ok && above.refusal.code).toBe('above_melting_point');
+      expect(intrinsicDensity({ material, temperatureK: melt - 1 }).ok).toBe(true);
+    }
   });
 });
