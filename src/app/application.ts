@@ -103,6 +103,8 @@ export class Application {
   readonly newId: () => string;
   readonly instanceId: string;
   readonly metrics: MetricsPort;
+  /** The fab's probe head (PROBE_SPACING_MM), cm. */
+  readonly probeSpacingCm: number | undefined;
   private readonly handler: Handler;
 
   private constructor(
@@ -115,6 +117,7 @@ export class Application {
     this.handler = options.handle ?? defaultHandle;
     this.instanceId = options.instanceId ?? `${hostname()}:${process.pid}`;
     this.metrics = options.metrics ?? NO_METRICS;
+    this.probeSpacingCm = options.lots?.probeSpacingCm;
   }
 
   /** Build the application on an open backend; a bad spec file is a StartupError. */
@@ -162,6 +165,7 @@ export class Application {
       ...(eventId ? { eventId } : {}),
       ...(log ? { log } : {}),
       ...(this.lots ? { lots: this.lots.service } : {}),
+      ...(this.probeSpacingCm !== undefined ? { probeSpacingCm: this.probeSpacingCm } : {}),
     };
   }
 

@@ -63,6 +63,8 @@ export interface HandleContext {
   readonly log?: FailureLog;
   /** Set by `handle` for the duration of one request. */
   readonly effects?: EffectLog;
+  /** The fab's four-point probe head (PROBE_SPACING_MM): pin spacing in cm, for readings that give none. */
+  readonly probeSpacingCm?: number;
   /** Lot records (record, lot, flags, clear, digest); absent where no lot store is wired. */
   readonly lots?: LotService;
 }

@@ -104,7 +104,10 @@ export const sheetCommand = defineCommand<SheetRequest>({
       asTyped,
     };
   },
-  run(req, ctx) {
+  run(rawReq, ctx) {
+    // No spacing typed: the fab's configured head (PROBE_SPACING_MM), said in the reply.
+    const headSpacing = rawReq.spacingCm === undefined ? ctx.probeSpacingCm : undefined;
+    const req = headSpacing !== undefined ? { ...rawReq, spacingCm: headSpacing } : rawReq;
     const outcome = fourPointProbe({
       ...(req.sheetResistanceOhmPerSq !== undefined ? { sheetResistanceOhmPerSq: req.sheetResistanceOhmPerSq } : {}),
       ...(req.voltageV !== undefined ? { voltageV: req.voltageV } : {}),
@@ -152,7 +155,10 @@ export const sheetCommand = defineCommand<SheetRequest>({
       { key: 'thicknessCorrectionFactor', value: r.thicknessFactor, unit: '', label: 'Thickness factor F(t/s)', sigFigs: 4 },
       { key: 'diameterCorrectionFactor', value: r.diameterFactor, unit: '', label: 'Diameter factor C(d/s)', sigFigs: 4 },
     ];
-    const assumptions = r.assumptionCodes.map(assumptionText);
+    const assumptions = [
+      ...(headSpacing !== undefined ? [`Probe spacing ${formatNumber(headSpacing * 10, { sigFigs: 3 })} mm: the fab's configured head (PROBE_SPACING_MM); give spacing <s> if another head was used.`] : []),
+      ...r.assumptionCodes.map(assumptionText),
+    ];
     const cautions = req.voltageV !== undefined ? [ELECTRICAL_HAZARD] : [];
     const steps = [
       req.voltageV !== undefined

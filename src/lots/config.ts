@@ -14,6 +14,8 @@
  *   LOT_EXAMPLE      a lot id that fits LOT_PATTERN, shown in error messages
  *   RECORD_CONFIRM_FACTOR  a reading more than this factor outside its product window is stored
  *                    only when confirmed (default 3; 0 turns the question off)
+ *   PROBE_SPACING_MM the pin spacing of the fab's four-point probe head, used when a `sheet`
+ *                    reading gives none (a product's spec may name its own, probeSpacingMm)
  *
  * DATABASE_PATH (default ./data/shiftprobe.db) is in the base section.
  */
@@ -67,6 +69,8 @@ export interface LotsConfig {
   readonly lotIds: LotIdRule;
   /** A reading more than this factor outside the window asks for confirmation (0: never). */
   readonly confirmFactor?: number;
+  /** The fab's four-point probe head: pin spacing, cm (PROBE_SPACING_MM). */
+  readonly probeSpacingCm?: number;
 }
 
 export const LotsEnv = z
@@ -112,6 +116,12 @@ export const LotsEnv = z
       .transform(Number)
       .refine((n) => n === 0 || n > 1, { error: 'RECORD_CONFIRM_FACTOR must be above 1 (e.g. 3), or 0 to turn the question off' })
       .optional(),
+    PROBE_SPACING_MM: z
+      .string()
+      .regex(/^\d+(?:\.\d+)?$/, { error: 'PROBE_SPACING_MM must be the probe head’s pin spacing in millimetres, e.g. 1.0' })
+      .transform(Number)
+      .refine((n) => n >= 0.1 && n <= 10, { error: 'PROBE_SPACING_MM must be between 0.1 and 10 (millimetres), e.g. 1.0 or 1.59' })
+      .optional(),
   })
   .superRefine((e, ctx) => {
     if (e.LOT_PATTERN !== undefined && e.LOT_EXAMPLE !== undefined && !new RegExp(e.LOT_PATTERN).test(e.LOT_EXAMPLE.toUpperCase())) {
@@ -133,6 +143,7 @@ export const LotsEnv = z
         clearChannels: e.CLEAR_CHANNELS,
       },
       ...(e.RECORD_CONFIRM_FACTOR !== undefined ? { confirmFactor: e.RECORD_CONFIRM_FACTOR } : {}),
+      ...(e.PROBE_SPACING_MM !== undefined ? { probeSpacingCm: e.PROBE_SPACING_MM / 10 } : {}),
       lotIds:
         e.LOT_PATTERN === undefined
           ? lotIdRule(DEFAULT_LOT_PATTERN, DEFAULT_LOT_EXAMPLE)

@@ -39,6 +39,8 @@ export interface EvaluationInput {
   readonly physics: LotPhysics;
   /** Resistivity values of the lot's current readings (the corrected one left out), ascending id. */
   readonly currentPoints: readonly PlaceValue[];
+  /** The fab's probe head spacing, cm, when neither the reading nor the product names one. */
+  readonly probeSpacingCm?: number;
 }
 
 export interface EvaluatedRecord {
@@ -75,7 +77,7 @@ export function evaluateRecord(input: EvaluationInput): { ok: true; value: Evalu
   let primaryRho: number | undefined;
 
   if (request.primary) {
-    const primary = primaryDraft(request.primary, request, product, physics, input.currentPoints, specRef);
+    const primary = primaryDraft(request.primary, request, product, physics, input.currentPoints, specRef, input.probeSpacingCm);
     if (!primary.ok) return primary;
     primaryRho = primary.value.resistivityOhmCm;
     drafts.push(primary.value);
@@ -140,13 +142,20 @@ function primaryDraft(
   physics: LotPhysics,
   currentPoints: readonly PlaceValue[],
   specRef: Partial<ReadingEvaluation>,
+  fabProbeSpacingCm?: number,
 ): DraftResult {
   const notes: LotNote[] = [];
   const checks: Check[] = [];
   const findings: FlagFinding[] = [];
   let rho: number;
   if (m.kind === 'sheet') {
-    const sheet = physics.resistivityFromSheet(m.sheetResistanceOhmPerSq, m.thicknessCm, m.spacingCm);
+    // The spacing typed, else the product's head, else the fab's head (PROBE_SPACING_MM).
+    const productSpacing = product?.probeSpacingMm !== undefined ? product.probeSpacingMm / 10 : undefined;
+    const spacing = m.spacingCm ?? productSpacing ?? fabProbeSpacingCm;
+    if (m.spacingCm === undefined && spacing !== undefined) {
+      notes.push({ code: 'assumption', assumption: `Probe spacing ${spacing * 10} mm from ${productSpacing !== undefined ? `the ${product!.id} spec (probeSpacingMm)` : 'the fab’s configured head (PROBE_SPACING_MM)'}.` });
+    }
+    const sheet = physics.resistivityFromSheet(m.sheetResistanceOhmPerSq, m.thicknessCm, spacing);
     if (!sheet.ok) return { ok: false, error: { code: 'measurement_refused', what: 'sheet', refusal: sheet.refusal } };
     rho = sheet.resistivityOhmCm;
     for (const p of sheet.problems) notes.push({ code: 'problem', problem: p });

@@ -17,6 +17,8 @@ export interface PlanInput {
   readonly request: RecordRequest;
   readonly catalog: SpecCatalog;
   readonly physics: LotPhysics;
+  /** The fab's probe head spacing (PROBE_SPACING_MM), cm, for sheet readings that give none. */
+  readonly probeSpacingCm?: number;
 }
 
 export function planRecord(input: PlanInput, state: LotState): PlanResult<RecordPlan> {
@@ -48,7 +50,7 @@ export function planRecord(input: PlanInput, state: LotState): PlanResult<Record
     currentPoints.push({ wafer: r.wafer, ...(r.site !== undefined ? { site: r.site } : {}), resistivityOhmCm: r.resistivityOhmCm, readingId: r.id });
   }
 
-  const evaluated = evaluateRecord({ request, productId, catalog, physics: input.physics, currentPoints });
+  const evaluated = evaluateRecord({ request, productId, catalog, physics: input.physics, currentPoints, ...(input.probeSpacingCm !== undefined ? { probeSpacingCm: input.probeSpacingCm } : {}) });
   if (!evaluated.ok) return evaluated;
   const { drafts, lotFindings } = evaluated.value;
 

@@ -60,6 +60,7 @@ export async function startLots(repo: LotRepository, config: LotsConfig, options
     permissions: config.permissions,
     lotIds: config.lotIds,
     ...(config.confirmFactor !== undefined ? { confirmFactor: config.confirmFactor } : {}),
+    ...(config.probeSpacingCm !== undefined ? { probeSpacingCm: config.probeSpacingCm } : {}),
     newEventId: options.newEventId ?? (() => `local-${randomUUID()}`),
     digest: { channel: config.digest.channel ?? 'console', at: config.digest.at },
   });

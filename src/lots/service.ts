@@ -22,6 +22,8 @@ export interface LotServiceDeps {
   /** The current specs (a function, so a reloaded spec file takes effect). */
   readonly specs: () => SpecCatalog;
   readonly physics: LotPhysics;
+  /** The fab's probe head spacing (PROBE_SPACING_MM), cm. */
+  readonly probeSpacingCm?: number;
   readonly now: Clock;
   readonly timeZone: string;
   readonly permissions: Permissions;
@@ -124,7 +126,7 @@ export class LotService {
         at: this.deps.now().toISOString(),
         ...(request.corrects !== undefined ? { corrects: request.corrects } : {}),
       },
-      (state) => planRecord({ lotId, request: { ...request, lotId }, catalog, physics: this.deps.physics }, state),
+      (state) => planRecord({ lotId, request: { ...request, lotId }, catalog, physics: this.deps.physics, ...(this.deps.probeSpacingCm !== undefined ? { probeSpacingCm: this.deps.probeSpacingCm } : {}) }, state),
     );
     if (!result.ok) return result;
     return { ok: true, value: { outcome: result.outcome, duplicate: result.duplicate, catalog } };

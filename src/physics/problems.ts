@@ -38,6 +38,10 @@ export type Problem =
    * and the model, and the range within which a model-based correction is trusted.
    */
   | { code: 'large_temperature_correction'; temperatureK: number; referenceK: number; changePercent: number; model: string; trustedWithinK: number }
+  /** Four-point probe: a thickness without any probe spacing, so F(t/s) could not be applied (taken as 1). */
+  | { code: 'thickness_factor_unknown'; thicknessCm: number; factorAtOneMm: number }
+  /** Four-point probe: thickness and diameter corrections both large; their product is an approximation. */
+  | { code: 'combined_geometry'; thicknessFactor: number; diameterFactor: number }
   /** van der Pauw: the two resistances differ by this ratio or more; contact placement errors weigh more. */
   | { code: 'contact_asymmetry'; ratio: number; limit: number }
   | { code: 'other'; message: string };

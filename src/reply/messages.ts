@@ -68,6 +68,10 @@ export function problemMessage(p: Problem): string {
       const dT = p.temperatureK - p.referenceK;
       return `The reading was taken ${formatNumber(Math.abs(dT), { sigFigs: 3 })} K ${dT > 0 ? 'above' : 'below'} ${formatNumber(p.referenceK - 273.15, { sigFigs: 3 })} °C and the correction changes it by ${p.changePercent > 0 ? '+' : ''}${formatNumber(p.changePercent, { sigFigs: 2 })} % (${p.model}). A correction like this is trusted within about ±${formatNumber(p.trustedWithinK)} K of the reference and under 10 % (common practice, no source): re-measure near ${formatNumber(p.referenceK - 273.15, { sigFigs: 3 })} °C, or use your procedure's coefficient, before acting on it.`;
     }
+    case 'thickness_factor_unknown':
+      return `No probe spacing given or configured: the thickness factor F(t/s) was taken as 1. For this ${formatNumber(p.thicknessCm * 1e4, { sigFigs: 3 })} µm sample under a 1 mm head F = ${formatNumber(p.factorAtOneMm, { sigFigs: 4 })}, so the resistivity would be ${formatNumber((1 - p.factorAtOneMm) * 100, { sigFigs: 2 })} % lower. Give spacing <s>, or set the fab's head (PROBE_SPACING_MM, or probeSpacingMm for the product).`;
+    case 'combined_geometry':
+      return `Both geometry corrections are large (thickness F = ${formatNumber(p.thicknessFactor, { sigFigs: 4 })}, diameter C/C∞ = ${formatNumber(p.diameterFactor, { sigFigs: 4 })}); applied as independent factors their product is an approximation. Measure nearer the centre of a larger or thinner sample, or use your procedure's correction table.`;
     case 'contact_asymmetry':
       return `The two van der Pauw resistances differ by a factor ${formatNumber(p.ratio, { sigFigs: 3 })} (≥ ${formatNumber(p.limit)}): the method still holds, but errors in contact size and placement weigh more; check the contacts and the sample's symmetry.`;
     case 'ionization_model_limit':

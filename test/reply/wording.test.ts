@@ -24,6 +24,8 @@ const PROBLEMS: { [C in ProblemCode]: Extract<Problem, { code: C }> } = {
   outdated_value: { code: 'outdated_value', quantity: 'intrinsicDensityPerCm3', outdated: 1.45e10, current: 9.65e9, source: 'Altermatt 2003' },
   geometry_limit: { code: 'geometry_limit', factor: 'diameter', ratio: 1.9, min: 3 },
   contact_asymmetry: { code: 'contact_asymmetry', ratio: 4.2, limit: 3 },
+  thickness_factor_unknown: { code: 'thickness_factor_unknown', thicknessCm: 0.0725, factorAtOneMm: 0.98 },
+  combined_geometry: { code: 'combined_geometry', thicknessFactor: 0.9, diameterFactor: 0.9 },
   large_temperature_correction: { code: 'large_temperature_correction', temperatureK: 373.15, referenceK: 296.15, changePercent: -38, model: 'Klaassen 1992', trustedWithinK: 10 },
   method_not_covered: { code: 'method_not_covered', method: 'point', material: 'Ge', standard: 'ASTM F42' },
   ionization_model_limit: { code: 'ionization_model_limit', dopantDensityPerCm3: 5e18, limitPerCm3: 1e18 },

@@ -53,6 +53,8 @@ export const ProductSpec = z
     spread: SpreadLimits.optional(),
     /** A reading this close to a limit (in % of the limit) passes with a warning. */
     nearLimitPercent: z.number().finite().min(0).max(50).optional(),
+    /** The pin spacing of the probe head this product is measured with, mm (sheet readings without a spacing). */
+    probeSpacingMm: z.number().finite().min(0.1).max(10).optional(),
     /** Conversion model id for ρ ↔ N (default: the core's default for the dopant). */
     model: z.string().min(1).max(40).optional(),
     notes: z.string().max(2000).optional(),

@@ -108,8 +108,16 @@ export function fourPointProbe(req: FourPointRequest): Outcome<FourPointResult> 
       if (diameterOverSpacing !== undefined) assumptionCodes.push('separable_corrections');
     } else {
       assumptionCodes.push('thickness_factor_assumed_1');
+      // Not silent: say what F would be under a common 1 mm head.
+      problems.push({ code: 'thickness_factor_unknown', thicknessCm: req.thicknessCm, factorAtOneMm: thicknessCorrectionFactor(req.thicknessCm / 0.1) });
     }
     rho = rs * req.thicknessCm * f;
+  }
+
+  // Each factor alone is exact for its geometry; applied together they are an approximation,
+  // good while at least one stays close to 1 (within 5 %, common practice, no source).
+  if (thicknessOverSpacing !== undefined && diameterOverSpacing !== undefined && f < 0.95 && c / THIN_SHEET_FACTOR < 0.95) {
+    problems.push({ code: 'combined_geometry', thicknessFactor: f, diameterFactor: c / THIN_SHEET_FACTOR });
   }
 
   let conversion: ConversionResult | undefined;
