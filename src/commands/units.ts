@@ -8,8 +8,33 @@
  */
 import { create, unitDependencies, type Unit } from 'mathjs';
 
-// Only the unit machinery of mathjs (not its whole expression library): loads in a fraction of the time.
-const mathUnit = create({ unitDependencies: unitDependencies! }).unit;
+// Only the unit machinery of mathjs (not its whole expression library), made on first use: a
+// one-shot answer whose units are all common ones (below) never builds it.
+let unitFactory: ReturnType<typeof create>['unit'] | undefined;
+function mathUnit(value: number | string, unit?: string): Unit {
+  unitFactory ??= create({ unitDependencies: unitDependencies! }).unit;
+  const make = unitFactory as (...a: unknown[]) => Unit;
+  return unit === undefined ? make(value) : make(value, unit);
+}
+
+/** Units people type every shift, read without mathjs (the same factors it would give). */
+const COMMON_UNITS: ReadonlyMap<string, { dimension: Dimension; factor: number; display: string }> = new Map([
+  ['ohm cm', { dimension: 'resistivity', factor: 1, display: 'ohm cm' }],
+  ['mohm cm', { dimension: 'resistivity', factor: 1e-3, display: 'mohm cm' }],
+  ['kohm cm', { dimension: 'resistivity', factor: 1e3, display: 'kohm cm' }],
+  ['ohm m', { dimension: 'resistivity', factor: 100, display: 'ohm m' }],
+  ['um', { dimension: 'length', factor: 1e-4, display: 'um' }],
+  ['mm', { dimension: 'length', factor: 0.1, display: 'mm' }],
+  ['cm', { dimension: 'length', factor: 1, display: 'cm' }],
+  ['nm', { dimension: 'length', factor: 1e-7, display: 'nm' }],
+  ['mV', { dimension: 'voltage', factor: 1e-3, display: 'mV' }],
+  ['V', { dimension: 'voltage', factor: 1, display: 'V' }],
+  ['uV', { dimension: 'voltage', factor: 1e-6, display: 'uV' }],
+  ['mA', { dimension: 'current', factor: 1e-3, display: 'mA' }],
+  ['A', { dimension: 'current', factor: 1, display: 'A' }],
+  ['uA', { dimension: 'current', factor: 1e-6, display: 'uA' }],
+  ['cm^3/C', { dimension: 'hallCoefficient', factor: 1, display: 'cm^3/C' }],
+]);
 
 export type Dimension =
   | 'resistivity'
@@ -223,6 +248,8 @@ function readUnitUncached(unitText: string, expected?: Dimension): UnitReading |
       ...(length.note ? { note: (n: number) => `${n} mil (thousandths of an inch) converted to ${Math.round(n * 25.4 * 10) / 10} µm.` } : {}),
     };
   }
+  const common = COMMON_UNITS.get(u.replace(/\bcm3\b/g, 'cm^3'));
+  if (common) return { dimension: common.dimension, convert: (n) => n * common.factor, display: common.display };
   let parsed: Unit;
   try {
     parsed = mathUnit(`1 ${u.replace(/\bcm(\d)\b/g, 'cm^$1').replace(/\bm(\d)\b/g, 'm^$1')}`);
