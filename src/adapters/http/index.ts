@@ -9,8 +9,6 @@
  * stack trace or a library's own text.
  */
 import { readFileSync } from 'node:fs';
-import type { AddressInfo } from 'node:net';
-import { serve as serveHttp, type ServerType } from '@hono/node-server';
 import { OpenAPIHono } from '@hono/zod-openapi';
 import { bodyLimit } from 'hono/body-limit';
 import type { Context } from 'hono';
@@ -19,6 +17,7 @@ import { convertDensities, convertResistivities } from '../../app/convert.js';
 import type { FailureLog } from '../../commands/context.js';
 import { SurfaceConfigError, type Surface } from '../../app/surface.js';
 import { toJson } from '../../render/json.js';
+import { addServiceRoutes, listen, type Listening } from '../serving.js';
 import { KeyRing, presentedKey, RateLimiter } from './auth.js';
 import { parseKeyList, type ApiKey, type HttpApiConfig } from './config.js';
 import { askRoute, convertDensityRoute, convertResistivityRoute, readingsRoute } from './routes.js';
@@ -103,16 +102,7 @@ export function createHttpApi(app: Application, keys: readonly ApiKey[], options
   });
   api.notFound((c) => apiError(c, 404, 'not_found', `no such endpoint: ${c.req.method} ${c.req.path}; see /v1/openapi.json`));
 
-  api.get('/healthz', (c) => c.json({ status: 'alive' }));
-  api.get('/readyz', async (c) => {
-    const store = (await app.backend.healthy().catch(() => false)) ? 'ok' : 'failing';
-    return c.json({ ready: store === 'ok', store }, store === 'ok' ? 200 : 503);
-  });
-
-  api.get('/metrics', async (c) => {
-    const m = await app.metrics.exposition();
-    return c.body(m.body, 200, { 'content-type': m.contentType, 'cache-control': 'no-store' });
-  });
+  addServiceRoutes(api, app);
 
   api.use('/v1/*', async (c, next) => {
     if (c.req.path === '/v1/openapi.json') return next();
@@ -211,32 +201,19 @@ export function loadApiKeys(config: HttpApiConfig): ApiKey[] {
 }
 
 export function httpApiSurface(app: Application, options: HttpApiOptions): Surface & { readonly port: () => number } {
-  let server: ServerType | undefined;
-  let port = 0;
+  let server: Listening | undefined;
   return {
     name: 'http',
-    port: () => port,
+    port: () => server?.port ?? 0,
     async start() {
       const api = createHttpApi(app, loadApiKeys(options.config), options);
-      server = await new Promise<ServerType>((resolve, reject) => {
-        const s = serveHttp({ fetch: api.fetch, port: options.config.port, hostname: options.host ?? '0.0.0.0' }, () => resolve(s));
-        s.once('error', reject);
-      });
-      port = (server.address() as AddressInfo).port;
-      return { port, description: `the HTTP API at :${port}/v1 (OpenAPI at /v1/openapi.json)` };
+      server = await listen(api.fetch, options.config.port, options.host);
+      return { port: server.port, description: `the HTTP API at :${server.port}/v1 (OpenAPI at /v1/openapi.json)` };
     },
     async stop() {
       const s = server;
       server = undefined;
-      if (!s) return;
-      await new Promise<void>((resolve) => {
-        s.close(() => resolve());
-        // Idle keep-alive connections would hold close() open.
-        (s as unknown as { closeIdleConnections?: () => void }).closeIdleConnections?.();
-        setTimeout(() => {
-          (s as unknown as { closeAllConnections?: () => void }).closeAllConnections?.();
-        }, options.stopGraceMs ?? 25_000).unref();
-      });
+      await s?.close(options.stopGraceMs ?? 25_000);
     },
     summaryNotifier: () => undefined,
   };

@@ -12,8 +12,6 @@
  * state and storage, where this surface needs only token checks, three REST calls and our
  * application layer's exactly-once `ask` — about 250 lines, all tested offline.
  */
-import type { AddressInfo } from 'node:net';
-import { serve as serveHttp, type ServerType } from '@hono/node-server';
 import { Hono } from 'hono';
 import { bodyLimit } from 'hono/body-limit';
 import type { Application } from '../../app/application.js';
@@ -23,6 +21,7 @@ import type { FailureLog } from '../../commands/context.js';
 import { isShareable } from '../../reply/kinds.js';
 import type { Reply } from '../../reply/reply.js';
 import { renderTeamsCard, type TeamsCardData, type TeamsCardOptions } from '../../render/teams-card.js';
+import { addServiceRoutes, listen, type Listening } from '../serving.js';
 import { TokenValidator } from './auth.js';
 import type { TeamsConfig } from './config.js';
 import { Connector } from './connector.js';
@@ -91,16 +90,7 @@ export function createTeamsApp(app: Application, options: TeamsSurfaceOptions): 
   const connector = new Connector(config.appId, config.appPassword, config.tokenUrl, fetchFn);
   const http = new Hono();
 
-  http.get('/healthz', (c) => c.json({ status: 'alive' }));
-  http.get('/readyz', async (c) => {
-    const store = (await app.backend.healthy().catch(() => false)) ? 'ok' : 'failing';
-    return c.json({ ready: store === 'ok', store }, store === 'ok' ? 200 : 503);
-  });
-
-  http.get('/metrics', async (c) => {
-    const m = await app.metrics.exposition();
-    return c.body(m.body, 200, { 'content-type': m.contentType, 'cache-control': 'no-store' });
-  });
+  addServiceRoutes(http, app);
 
   http.post('/api/messages', bodyLimit({ maxSize: 256 * 1024, onError: (c) => c.json({ error: 'too_large' }, 413) }), async (c) => {
     let activity: Activity;
@@ -170,29 +160,20 @@ export function createTeamsApp(app: Application, options: TeamsSurfaceOptions): 
 }
 
 export function teamsSurface(app: Application, options: TeamsSurfaceOptions): Surface {
-  let server: ServerType | undefined;
+  let server: Listening | undefined;
   let connector: Connector | undefined;
   return {
     name: 'teams',
     async start() {
       const built = createTeamsApp(app, options);
       connector = built.connector;
-      server = await new Promise<ServerType>((resolve, reject) => {
-        const s = serveHttp({ fetch: built.http.fetch, port: options.config.port, hostname: options.host ?? '0.0.0.0' }, () => resolve(s));
-        s.once('error', reject);
-      });
-      const port = (server.address() as AddressInfo).port;
-      return { port, description: `Teams (activities at :${port}/api/messages, app ${options.config.appId})` };
+      server = await listen(built.http.fetch, options.config.port, options.host);
+      return { port: server.port, description: `Teams (activities at :${server.port}/api/messages, app ${options.config.appId})` };
     },
     async stop() {
       const s = server;
       server = undefined;
-      if (!s) return;
-      await new Promise<void>((resolve) => {
-        s.close(() => resolve());
-        (s as unknown as { closeIdleConnections?: () => void }).closeIdleConnections?.();
-        setTimeout(() => (s as unknown as { closeAllConnections?: () => void }).closeAllConnections?.(), options.stopGraceMs ?? 25_000).unref();
-      });
+      await s?.close(options.stopGraceMs ?? 25_000);
     },
     summaryNotifier(): SummaryNotifier | undefined {
       const conversation = options.config.digestConversation;
