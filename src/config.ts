@@ -136,7 +136,7 @@ export function readEnvironment(options: { cwd?: string; file?: string; env?: En
   return { ...fromFile, ...(options.env ?? process.env) };
 }
 
-/** Whether a start-up opens the chat surfaces or the local console (see `hasChatSurface` in main.ts). */
-export function surfaceOf(config: Config): 'slack' | 'console' {
-  return config.slack === undefined ? 'console' : 'slack';
+/** Whether a start-up serves the configured surfaces (Slack, the HTTP API, Teams) or opens the local console. */
+export function surfaceOf(config: Config): 'serve' | 'console' {
+  return config.slack !== undefined || config.httpApi !== undefined || config.teams !== undefined ? 'serve' : 'console';
 }

@@ -24,7 +24,7 @@ import type { SlackDeps, SlackRuntime } from './adapters/slack/index.js';
 import { createMetrics } from './adapters/metrics.js';
 import { proxiedFetch } from './adapters/proxy.js';
 import { openBackend } from './adapters/storage/open.js';
-import { describeConfigProblems, loadConfig, readEnvironment, type Config } from './config.js';
+import { describeConfigProblems, loadConfig, readEnvironment, surfaceOf, type Config } from './config.js';
 import { renderJson } from './render/json.js';
 import { renderText } from './render/text.js';
 
@@ -65,7 +65,7 @@ export async function main(argv: readonly string[], io: MainIo = process as unkn
   }
   const config = loaded.config;
   if (text.trim() !== '' && !serveFlag) return oneShot(text, json, config, io);
-  if (hasChatSurface(config)) return serve(config, { io, env: io.env });
+  if (surfaceOf(config) === 'serve') return serve(config, { io, env: io.env });
   return startConsole(config, io);
 }
 
@@ -113,11 +113,6 @@ async function backup(target: string | undefined, io: MainIo): Promise<number> {
   } finally {
     db.close();
   }
-}
-
-/** Whether any chat surface is configured (otherwise the local console runs). */
-export function hasChatSurface(config: Config): boolean {
-  return config.slack !== undefined || config.httpApi !== undefined || config.teams !== undefined;
 }
 
 /**
