@@ -3,35 +3,23 @@
  * status 78 (EX_CONFIG) and no stack trace, and never changes a database that is not ours.
  * The real entry point (bin/shiftprobe.mjs) in a child process, temporary files only.
  */
-import { execFile, spawnSync } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import { createHash, randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, truncateSync, writeFileSync } from 'node:fs';
 import { createServer, type Server } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { Writable } from 'node:stream';
-import { promisify } from 'node:util';
 import Database from 'better-sqlite3';
+import { cli } from './support/cli.js';
 import { afterAll, describe, expect, it } from 'vitest';
 import { loadConfig } from '../src/config.js';
 import { serve } from '../src/main.js';
 import { postgresServerUrl } from './support/postgres.js';
 
-const run = promisify(execFile);
 const tmp = mkdtempSync(join(tmpdir(), 'shiftprobe-startup-'));
 afterAll(() => rmSync(tmp, { recursive: true, force: true }));
 
-const baseEnv = { ...process.env, SLACK_BOT_TOKEN: '', SLACK_APP_TOKEN: '', SLACK_SIGNING_SECRET: '', SPEC_FILE: '', DATABASE_URL: '' };
-
-async function cli(env: Record<string, string>, ...args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  try {
-    const { stdout, stderr } = await run(process.execPath, ['bin/shiftprobe.mjs', ...args], { env: { ...baseEnv, ...env } });
-    return { code: 0, stdout, stderr };
-  } catch (e) {
-    const x = e as { code: number; stdout: string; stderr: string };
-    return { code: x.code, stdout: x.stdout, stderr: x.stderr };
-  }
-}
 
 const sha = (path: string) => createHash('sha256').update(readFileSync(path)).digest('hex');
 

@@ -4,10 +4,10 @@
  * shiftprobe.mjs, the console and the one-shot CLI) records, shows and summarises lots on a
  * temporary database.
  */
-import { execFile, spawn } from 'node:child_process';
+import { spawn } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { promisify } from 'node:util';
+import { cli, CLI_BASE_ENV } from '../support/cli.js';
 import { afterAll, describe, expect, it } from 'vitest';
 import { DEMO_SPEC_FILE } from '../../src/lots/config.js';
 import { lotIdRule } from '../../src/lots/ids.js';
@@ -58,18 +58,6 @@ describe('startLots', () => {
   });
 });
 
-const run = promisify(execFile);
-const baseEnv = { ...process.env, SLACK_BOT_TOKEN: '', SLACK_APP_TOKEN: '', SLACK_SIGNING_SECRET: '', SPEC_FILE: '', DIGEST_TZ: 'Europe/London' };
-
-async function cli(env: Record<string, string>, ...args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  try {
-    const { stdout, stderr } = await run(process.execPath, ['bin/shiftprobe.mjs', ...args], { env: { ...baseEnv, ...env } });
-    return { code: 0, stdout, stderr };
-  } catch (e) {
-    const x = e as { code: number; stdout: string; stderr: string };
-    return { code: x.code, stdout: x.stdout, stderr: x.stderr };
-  }
-}
 
 describe('the entry point', () => {
   it('one-shot: record on a demo lot (LOT-A21, clean), then lot shows it; --json carries the verdict', async () => {
@@ -98,7 +86,7 @@ describe('the entry point', () => {
 
   it('the console: a new user records for a demo lot, sees the flags and the summary', async () => {
     const out = await new Promise<string>((resolve, reject) => {
-      const p = spawn(process.execPath, ['bin/shiftprobe.mjs'], { env: { ...baseEnv, DATABASE_PATH: join(tmp.dir, 'console.db') } });
+      const p = spawn(process.execPath, ['bin/shiftprobe.mjs'], { env: { ...CLI_BASE_ENV, DIGEST_TZ: 'Europe/London', DATABASE_PATH: join(tmp.dir, 'console.db') } });
       let stdout = '';
       p.stdout.on('data', (d: Buffer) => (stdout += d.toString()));
       p.on('error', reject);
