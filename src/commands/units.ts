@@ -18,7 +18,7 @@ function mathUnit(value: number | string, unit?: string): Unit {
 }
 
 /** Units people type every shift, read without mathjs (the same factors it would give). */
-const COMMON_UNITS: ReadonlyMap<string, { dimension: Dimension; factor: number; display: string }> = new Map([
+export const COMMON_UNITS: ReadonlyMap<string, { dimension: Dimension; factor: number; display: string }> = new Map([
   ['ohm cm', { dimension: 'resistivity', factor: 1, display: 'ohm cm' }],
   ['mohm cm', { dimension: 'resistivity', factor: 1e-3, display: 'mohm cm' }],
   ['kohm cm', { dimension: 'resistivity', factor: 1e3, display: 'kohm cm' }],

@@ -92,3 +92,15 @@ describe('unit spellings', () => {
     expect(q.ok).toBe(false);
   });
 });
+
+describe('the fast path for common units', () => {
+  it('gives the factor mathjs gives for every unit in it (the table is a shortcut, not a second source)', async () => {
+    const { COMMON_UNITS } = await import('../../src/commands/units.js');
+    const { create, unitDependencies } = await import('mathjs');
+    const { unit } = create({ unitDependencies: unitDependencies! });
+    const canonical: Record<string, string> = { resistivity: 'ohm cm', length: 'cm', voltage: 'V', current: 'A', hallCoefficient: 'cm^3/C' };
+    for (const [text, entry] of COMMON_UNITS) {
+      expect(entry.factor, text).toBeWithinRelative(unit(`1 ${text}`).toNumber(canonical[entry.dimension]!), 1e-12);
+    }
+  });
+});
