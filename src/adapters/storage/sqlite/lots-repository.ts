@@ -136,7 +136,7 @@ export class SqliteLotRepository implements LotRepository {
   }
 
   async countLots(): Promise<number> {
-    return this.countLotsSync();
+    return (this.db.prepare('SELECT count(*) AS n FROM lots').get() as { n: number }).n;
   }
 
   get database(): Db {
@@ -149,7 +149,10 @@ export class SqliteLotRepository implements LotRepository {
     return this.commitRecordSync(write, plan);
   }
 
-  /** The same write, synchronously (SQLite is synchronous underneath): for seeding and tools. */
+  /**
+   * The same write, synchronously (SQLite is synchronous underneath), so a bulk fill can run many
+   * inside one outer transaction (bench/lots.bench.ts).
+   */
   commitRecordSync(write: RecordWrite, plan: (state: LotState) => PlanResult<RecordPlan>): WriteResult<RecordOutcome> {
     const run = this.db.transaction((): WriteResult<RecordOutcome> => {
       const seen = this.st.event.get(write.eventId) as { kind: string; outcome_json: string } | undefined;
@@ -263,10 +266,6 @@ export class SqliteLotRepository implements LotRepository {
   }
 
   async commitClear(write: ClearWrite, plan: (state: ClearState) => PlanResult<ClearPlan>): Promise<WriteResult<ClearOutcome>> {
-    return this.commitClearSync(write, plan);
-  }
-
-  commitClearSync(write: ClearWrite, plan: (state: ClearState) => PlanResult<ClearPlan>): WriteResult<ClearOutcome> {
     const run = this.db.transaction((): WriteResult<ClearOutcome> => {
       const seen = this.st.event.get(write.eventId) as { lot_id: string; outcome_json: string } | undefined;
       if (seen) {
@@ -338,10 +337,6 @@ export class SqliteLotRepository implements LotRepository {
 
   async countReadings(): Promise<number> {
     return (this.st.countReadings.get() as { n: number }).n;
-  }
-
-  countLotsSync(): number {
-    return (this.db.prepare('SELECT count(*) AS n FROM lots').get() as { n: number }).n;
   }
 
   // ---------- digest claims ----------
