@@ -21,6 +21,8 @@ import { convertDensityToResistivity, convertResistivityToDensity } from '../src
 import { masetti1983Conversion } from '../src/physics/resistivity/masetti-1983.js';
 import { resistivityFromMobilityOhmCm } from '../src/physics/resistivity/mobility-conversion.js';
 import { CONVERSION_MODELS } from '../src/physics/resistivity/registry.js';
+import { convertDensityBatch, convertResistivityBatch } from '../src/physics/resistivity/batch.js';
+import { spawnSync } from 'node:child_process';
 import type { ReplyOk } from '../src/reply/reply.js';
 import { renderJson } from '../src/render/json.js';
 import { renderText } from '../src/render/text.js';
@@ -141,7 +143,7 @@ function benchRootFinding(): Row[] {
   let evaluations = 0;
   let calls = 0;
   const full = measure(
-    'root finding: Brent over 1e10–1e22, Masetti boron',
+    'root finding: Brent over 1e10–1e22, Masetti boron (the fallback)',
     (i) => {
       const r = invertResistivityForDensity(rhoOf, targets[i] as number);
       evaluations += r.evaluations;
@@ -149,13 +151,57 @@ function benchRootFinding(): Row[] {
       return r.dopantDensityPerCm3;
     },
   );
-  const used = measure('root finding: Masetti ρ→N kernel (narrowed bracket)', (i) =>
+  const used = measure('root finding: Masetti ρ→N kernel (table guess + Newton)', (i) =>
     masetti1983Conversion.dopantDensityFromResistivity(targets[i] as number, 'boron'),
   );
   return [
     { ...full, note: `${(evaluations / calls).toFixed(1)} evaluations per inversion` },
-    { ...used, note: 'target < 2 µs (the inversion every mobility-model ρ→N uses)' },
+    { ...used, note: 'target ≤ 0.5 µs (the inversion every mobility-model ρ→N uses)' },
   ];
+}
+
+/**
+ * The batch path (wafer maps, HTTP arrays): Float64Array in and out, per element, for every model
+ * and direction, at 10 000 and 100 000 elements. Targets from issue 12: F723 boron ρ→N ≤ 70 ns per
+ * element; mobility-model inversions (ρ→N) ≤ 0.5 µs per element.
+ */
+function benchBatch(): Row[] {
+  const rows: Row[] = [];
+  for (const size of [10_000, 100_000]) {
+    for (const model of CONVERSION_MODELS) {
+      const dopant = model.dopants[0];
+      const dom = dopant ? model.domain[dopant] : undefined;
+      if (!dopant || !dom) continue;
+      const rho = logSpaced(dom.resistivityOhmCm.min * 1.01, dom.resistivityOhmCm.max / 1.01, size);
+      const density = logSpaced(dom.dopantDensityPerCm3.min * 1.01, dom.dopantDensityPerCm3.max / 1.01, size);
+      for (const [dir, input, run] of [
+        ['ρ→N', rho, convertResistivityBatch],
+        ['N→ρ', density, convertDensityBatch],
+      ] as const) {
+        for (let k = 0; k < 5; k++) run(input, dopant, model.id);
+        let best = Number.POSITIVE_INFINITY;
+        for (let k = 0; k < 15; k++) {
+          const start = process.hrtime.bigint();
+          const o = run(input, dopant, model.id);
+          best = Math.min(best, Number(process.hrtime.bigint() - start) / size);
+          if (o.ok) sink += o.value.out[k] ?? 0;
+        }
+        rows.push({ name: `batch ${dir} ${model.id} (${dopant}) × ${size}`, opsPerSecond: 1e9 / best, nsPerOp: best });
+      }
+    }
+  }
+  return rows;
+}
+
+/** The NumPy peer (bench/peers/f723_boron_numpy.py), measured in the same run when Python has NumPy. */
+function numpyPeer(): Record<string, number> | string {
+  const run = spawnSync('python3', ['bench/peers/f723_boron_numpy.py'], { encoding: 'utf8' });
+  if (run.status !== 0) return 'not measured (python3 with NumPy not found); see docs/benchmarks.md';
+  try {
+    return (JSON.parse(run.stdout) as { sizes: Record<string, number> }).sizes;
+  } catch {
+    return 'not measured (the peer printed no JSON)';
+  }
 }
 
 /** A result store that keeps only the latest reply (the bench must not grow memory). */
@@ -233,7 +279,18 @@ async function main(): Promise<void> {
     }
   }
   const root = roots[1] as Row;
-  console.log(`Root-finding inversion ${(root.nsPerOp / 1000).toFixed(2)} µs (target < 2 µs).`);
+  console.log(`Root-finding inversion ${(root.nsPerOp / 1000).toFixed(2)} µs (target ≤ 0.5 µs).`);
+  const batch = benchBatch();
+  printTable('Batch path, ns per element (Float64Array in and out)', batch);
+  const peer = numpyPeer();
+  for (const size of [10_000, 100_000]) {
+    const ours = batch.find((r) => r.name === `batch ρ→N f723 (boron) × ${size}`);
+    const theirs = typeof peer === 'string' ? peer : `${(peer[String(size)] ?? Number.NaN).toFixed(1)} ns`;
+    console.log(`F723 boron ρ→N × ${size}: ${ours?.nsPerOp.toFixed(1)} ns per element (target ≤ 70); NumPy peer ${theirs}.`);
+  }
+  const inversions = batch.filter((r) => r.name.startsWith('batch ρ→N') && !r.name.includes(' f723'));
+  const worst = inversions.reduce((a, b) => (b.nsPerOp > a.nsPerOp ? b : a));
+  console.log(`Slowest mobility-model inversion in the batch path: ${worst.name}, ${(worst.nsPerOp / 1000).toFixed(2)} µs per element (target ≤ 0.5 µs).`);
   printTable('Commands: parse → compute → render', await benchCommands());
   if (sink === 42) console.log('');
 }

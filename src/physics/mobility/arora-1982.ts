@@ -25,6 +25,7 @@ import {
   type MobilityConditions,
   type TemperatureMobilityModel,
 } from './temperature-model.js';
+import { powPositive } from '../numeric/pow.js';
 
 export interface AroraParameters {
   /** μmin at 300 K and its exponent in Tn. */
@@ -79,11 +80,11 @@ export function aroraMobilityCm2PerVs(
   temperatureK: number,
 ): number {
   const tn = temperatureK / 300;
-  const muMin = p.minimumAt300KCm2PerVs * Math.pow(tn, p.minimumExponent);
-  const mu0 = p.rangeCoefficientCm2PerVs * Math.pow(temperatureK, p.rangeExponent);
-  const nRef = p.referenceAt300KPerCm3 * Math.pow(tn, p.referenceExponent);
-  const alpha = p.alphaAt300K * Math.pow(tn, p.alphaExponent);
-  return muMin + mu0 / (1 + Math.pow(Math.max(impurityDensityPerCm3, 0) / nRef, alpha));
+  const muMin = p.minimumAt300KCm2PerVs * powPositive(tn, p.minimumExponent);
+  const mu0 = p.rangeCoefficientCm2PerVs * powPositive(temperatureK, p.rangeExponent);
+  const nRef = p.referenceAt300KPerCm3 * powPositive(tn, p.referenceExponent);
+  const alpha = p.alphaAt300K * powPositive(tn, p.alphaExponent);
+  return muMin + mu0 / (1 + powPositive(Math.max(impurityDensityPerCm3, 0) / nRef, alpha));
 }
 
 export function aroraElectronMobilityCm2PerVs(impurityDensityPerCm3: number, temperatureK: number): number {

@@ -21,6 +21,7 @@
  */
 import type { CarrierType, Dopant, Parameter } from '../types.js';
 import type { MobilityModel } from './mobility-model.js';
+import { powPositive } from '../numeric/pow.js';
 
 export interface CaugheyThomasParameters {
   readonly muMin: number;
@@ -36,7 +37,7 @@ export const CAUGHEY_THOMAS_1967: Readonly<Record<CarrierType, CaugheyThomasPara
 
 /** Kernel: Caughey–Thomas mobility for one parameter set, cm²/(V·s). */
 export function caugheyThomasMobilityCm2PerVs(p: CaugheyThomasParameters, dopantDensityPerCm3: number): number {
-  return p.muMin + (p.muMax - p.muMin) / (1 + Math.pow(dopantDensityPerCm3 / p.nRefPerCm3, p.alpha));
+  return p.muMin + (p.muMax - p.muMin) / (1 + powPositive(dopantDensityPerCm3 / p.nRefPerCm3, p.alpha));
 }
 
 const VALIDITY = { min: 1e13, max: 1e20 };

@@ -60,6 +60,7 @@ import {
   type MobilityConditions,
   type TemperatureMobilityModel,
 } from './temperature-model.js';
+import { powPositive } from '../numeric/pow.js';
 
 export interface KlaassenCarrierParameters {
   readonly maxCm2PerVs: number;
@@ -118,8 +119,8 @@ function gRaw(p: number, tRatio: number, massRatio: number): number {
   const s = KLAASSEN_1992.s;
   return (
     1 -
-    s[0] / Math.pow(s[1] + Math.pow(tRatio / massRatio, s[3]) * p, s[2]) +
-    s[4] / Math.pow(Math.pow(massRatio / tRatio, s[6]) * p, s[5])
+    s[0] / powPositive(s[1] + powPositive(tRatio / massRatio, s[3]) * p, s[2]) +
+    s[4] / powPositive(powPositive(massRatio / tRatio, s[6]) * p, s[5])
   );
 }
 
@@ -138,14 +139,14 @@ function gMinimumP(tRatio: number, massRatio: number): number {
   const cached = byT.get(tRatio);
   if (cached !== undefined) return cached;
   const s = KLAASSEN_1992.s;
-  const a = Math.pow(tRatio / massRatio, s[3]);
-  const bPow = Math.pow(Math.pow(massRatio / tRatio, s[6]), s[5]);
+  const a = powPositive(tRatio / massRatio, s[3]);
+  const bPow = powPositive(powPositive(massRatio / tRatio, s[6]), s[5]);
   const c1 = s[0] * s[2] * a;
   const c2 = (s[4] * s[5]) / bPow;
   // Sign of the slope, scaled to stay O(1): positive above the minimum.
   const slope = (u: number) => {
     const p = Math.pow(10, u);
-    return Math.log(c1 / Math.pow(s[1] + a * p, s[2] + 1)) - Math.log(c2 / Math.pow(p, s[5] + 1));
+    return Math.log(c1 / powPositive(s[1] + a * p, s[2] + 1)) - Math.log(c2 / powPositive(p, s[5] + 1));
   };
   const r = brentRoot(slope, -8, 4, { xTolerance: 1e-9 });
   const pMin = r.converged ? Math.pow(10, r.x) : r.status === 'no_sign_change' && slope(-8) > 0 ? 1e-8 : 1e4;
@@ -164,7 +165,7 @@ export function klaassenG(p: number, temperatureK: number, massRatio: number): n
 /** F(P), electron–hole scattering relative to impurity scattering. */
 export function klaassenF(p: number, massRatioThisToOther: number): number {
   const r = KLAASSEN_1992.r;
-  const pr = Math.pow(p, r[5]);
+  const pr = powPositive(p, r[5]);
   return (r[0] * pr + r[1] + r[2] * massRatioThisToOther) / (pr + r[3] + r[4] * massRatioThisToOther);
 }
 
@@ -183,12 +184,12 @@ interface CarrierSide {
 function mobility(side: CarrierSide, carrierSumPerCm3: number, temperatureK: number): number {
   const { set } = side;
   const tRatio = temperatureK / 300;
-  const lattice = set.maxCm2PerVs * Math.pow(tRatio, -set.theta);
+  const lattice = set.maxCm2PerVs * powPositive(tRatio, -set.theta);
   const nSc = side.sameImpurity + side.oppositeImpurity + side.otherCarrier;
   if (!(nSc > 0)) return lattice;
   const k = KLAASSEN_1992;
   // 1/P = f_CW/P_CW + f_BH/P_BH, written without dividing by a zero carrier density.
-  const invCw = Math.pow(nSc, 2 / 3) / (k.cwCoefficient * tRatio * tRatio);
+  const invCw = powPositive(nSc, 2 / 3) / (k.cwCoefficient * tRatio * tRatio);
   const invBh = carrierSumPerCm3 / (k.bhCoefficientPerCm3 * side.massRatio * tRatio * tRatio);
   const p = 1 / (k.fCW * invCw + k.fBH * invBh);
   // G scales the scattering by the opposite-kind impurity only: skip it when there is none.
@@ -197,10 +198,10 @@ function mobility(side: CarrierSide, carrierSumPerCm3: number, temperatureK: num
   const nScEff = side.sameImpurity + g * side.oppositeImpurity + side.otherCarrier / f;
   if (!(nScEff > 0)) return lattice;
   const span = set.maxCm2PerVs - set.minCm2PerVs;
-  const muN = ((set.maxCm2PerVs * set.maxCm2PerVs) / span) * Math.pow(tRatio, 3 * set.alpha - 1.5);
-  const muC = ((set.maxCm2PerVs * set.minCm2PerVs) / span) * Math.pow(tRatio, -0.5);
+  const muN = ((set.maxCm2PerVs * set.maxCm2PerVs) / span) * powPositive(tRatio, 3 * set.alpha - 1.5);
+  const muC = ((set.maxCm2PerVs * set.minCm2PerVs) / span) * powPositive(tRatio, -0.5);
   const impurity =
-    muN * (nSc / nScEff) * Math.pow(set.referencePerCm3 / nSc, set.alpha) + muC * (carrierSumPerCm3 / nScEff);
+    muN * (nSc / nScEff) * powPositive(set.referencePerCm3 / nSc, set.alpha) + muC * (carrierSumPerCm3 / nScEff);
   return 1 / (1 / lattice + 1 / impurity);
 }
 

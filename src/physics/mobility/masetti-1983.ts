@@ -23,6 +23,7 @@
  */
 import type { CarrierType, Dopant, Parameter } from '../types.js';
 import type { MobilityModel } from './mobility-model.js';
+import { powPositive } from '../numeric/pow.js';
 
 export interface MasettiParameters {
   readonly mu0: number;
@@ -60,9 +61,9 @@ export function masettiMobilityCm2PerVs(p: MasettiParameters, dopantDensityPerCm
   const lattice = p.pcPerCm3 === undefined ? p.mu0 : p.mu0 * Math.exp(-p.pcPerCm3 / n);
   const ionized =
     p.pcPerCm3 === undefined
-      ? (p.muMax - p.mu0) / (1 + Math.pow(n / p.crPerCm3, p.alpha))
-      : p.muMax / (1 + Math.pow(n / p.crPerCm3, p.alpha));
-  const clustering = p.mu1 / (1 + Math.pow(p.csPerCm3 / n, p.beta));
+      ? (p.muMax - p.mu0) / (1 + powPositive(n / p.crPerCm3, p.alpha))
+      : p.muMax / (1 + powPositive(n / p.crPerCm3, p.alpha));
+  const clustering = p.mu1 / (1 + powPositive(p.csPerCm3 / n, p.beta));
   return lattice + ionized - clustering;
 }
 

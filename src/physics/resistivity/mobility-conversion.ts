@@ -1,6 +1,7 @@
 /**
- * A resistivity conversion built from a mobility model: ρ = 1/(q·N·μ(N)) forward, and the
- * bracketed root finder (src/physics/numeric/invert-density.ts) for ρ → N.
+ * A resistivity conversion built from a mobility model: ρ = 1/(q·N·μ(N)) forward; ρ → N by a
+ * tabulated guess and Newton steps (src/physics/numeric/newton-inversion.ts), with the bracketed
+ * root finder (src/physics/numeric/invert-density.ts) as the fallback.
  *
  * Assumes one carrier type (the majority carrier), full ionization (carrier density = N) and
  * no compensation; the mobility model's temperature (300 K for Masetti and Caughey–Thomas).
@@ -8,6 +9,7 @@
 import { ELEMENTARY_CHARGE_C } from '../constants.js';
 import type { MobilityModel } from '../mobility/mobility-model.js';
 import { invertResistivityForDensity, DENSITY_BRACKET_LOG10_PER_CM3 } from '../numeric/invert-density.js';
+import { buildInversionTable, invertWithTable, type InversionTable } from '../numeric/newton-inversion.js';
 import type { Problem } from '../problems.js';
 import type { Dopant, Parameter, Range } from '../types.js';
 import { widen, type ConversionDomain, type RegisteredConversionModel } from './conversion-model.js';
@@ -73,6 +75,18 @@ export function conversionFromMobility(
     if (max > 0) productBounds[d] = { min: min / 1.05, max: max * 1.05 };
   }
 
+  // Newton tables per dopant, built on the first ρ → N of that dopant (null: not invertible that
+  // way, use Brent). The table spans the bracket, so every domain value is inside it.
+  const tables = new Map<Dopant, InversionTable | null>();
+  const tableFor = (d: Dopant): InversionTable | null => {
+    let t = tables.get(d);
+    if (t === undefined) {
+      t = buildInversionTable((n) => rhoOf(n, d), DENSITY_BRACKET_LOG10_PER_CM3) ?? null;
+      tables.set(d, t);
+    }
+    return t;
+  };
+
   const validity: Partial<Record<Dopant, { resistivityOhmCm: Range; dopantDensityPerCm3: Range }>> = {};
   const domain: Partial<Record<Dopant, ConversionDomain>> = {};
   for (const d of dopants) {
@@ -99,7 +113,7 @@ export function conversionFromMobility(
     validity,
     domain,
     equations: [
-      'ρ = 1/(q·N·μ(N)); ρ → N by Brent root finding in log10 N over 1e10–1e22 cm⁻³',
+      'ρ = 1/(q·N·μ(N)); ρ → N by Newton steps in ln N from a tabulated guess (Brent root finding over 1e10–1e22 cm⁻³ as fallback)',
       ...mobility.equations,
     ],
     notes: [...mobility.notes, ...(options.extraNotes ?? [])],
@@ -113,6 +127,11 @@ export function conversionFromMobility(
     dopantDensityFromResistivity(resistivityOhmCm: number, dopant: Dopant): number {
       if (!(resistivityOhmCm > 0)) return Number.NaN;
       const f = (n: number) => rhoOf(n, dopant);
+      const table = tableFor(dopant);
+      if (table) {
+        const fast = invertWithTable(table, f, resistivityOhmCm);
+        if (fast.converged) return fast.dopantDensityPerCm3;
+      }
       // Narrow bracket first (N = g(N)/ρ with g = ρ·N = 1/(qμ) bounded); full bracket if that fails.
       const g = productBounds[dopant];
       if (g) {
