@@ -13,3 +13,5 @@ export * from './type/index.js';
 export * from './four-point/index.js';
 export * from './carriers/index.js';
 export * from './layer/index.js';
+export * from './statistics/index.js';
+export * from './wafer/index.js';

@@ -143,6 +143,8 @@ const ASSUMPTIONS: Record<string, string> = {
   layer_no_depletion: 'Conduction counted from the surface to the metallurgical junction (depletion width neglected).',
   tc_linear_user: 'Your temperature coefficient applied linearly between the reading temperature and 23 °C.',
   tc_full_ionization: 'Dopants fully ionized at both temperatures.',
+  map_infinite_sheet_factor: 'Sheet resistance at each site from V/I with the infinite-sheet factor π/ln2; no site-by-site edge correction (sites within a few probe spacings of the edge read high).',
+  map_thin_sheet: 'No probe spacing known: thickness factor F(t/s) taken as 1 at every site (layer thin against the spacing).',
   tc_self_consistent: 'Doping found self-consistently from the reading at its own temperature, then ρ recomputed at 23 °C.',
 };
 
