@@ -14,7 +14,7 @@
  */
 import { randomBytes } from 'node:crypto';
 import { hostname } from 'node:os';
-import type { Caller, FailureLog, HandleContext, PendingChoice, Surface } from '../commands/context.js';
+import type { Attachment, Caller, FailureLog, HandleContext, PendingChoice, Surface } from '../commands/context.js';
 import { handle as defaultHandle } from '../commands/handle.js';
 import { findCommand } from '../commands/registry.js';
 import { recordCommand } from '../commands/lots/record.js';
@@ -73,6 +73,8 @@ export interface Question {
   readonly session?: Session;
   /** Where this surface logs failures. */
   readonly log?: FailureLog;
+  /** A file sent with the question (a measurement CSV for `map`). */
+  readonly attachment?: Attachment;
 }
 
 export type Asked =
@@ -154,7 +156,7 @@ export class Application {
   }
 
   /** The HandleContext of one request. */
-  contextFor(surface: Surface, caller: Caller, session: Session, eventId?: string, log?: FailureLog): HandleContext {
+  contextFor(surface: Surface, caller: Caller, session: Session, eventId?: string, log?: FailureLog, attachment?: Attachment): HandleContext {
     return {
       surface,
       caller,
@@ -166,6 +168,7 @@ export class Application {
       ...(log ? { log } : {}),
       ...(this.lots ? { lots: this.lots.service } : {}),
       ...(this.probeSpacingCm !== undefined ? { probeSpacingCm: this.probeSpacingCm } : {}),
+      ...(attachment ? { attachment } : {}),
     };
   }
 
@@ -176,7 +179,7 @@ export class Application {
     const session: Session = q.session ?? {};
     const before = q.conversationKey !== undefined ? await this.backend.conversations.lastResult(q.conversationKey) : session.lastResultId;
     if (before !== undefined) session.lastResultId = before;
-    const ctx = this.contextFor(q.surface, q.caller, session, q.eventKey ?? q.effectKey, q.log);
+    const ctx = this.contextFor(q.surface, q.caller, session, q.eventKey ?? q.effectKey, q.log, q.attachment);
     const reply = await this.handler(q.text, ctx);
     // `handle` keeps results; a `why` answer is kept here so its card's buttons work too.
     if (isShareable(reply) && !isResult(reply)) await this.storage(() => this.backend.results.save(reply));

@@ -49,6 +49,12 @@ export interface PendingChoice {
   readonly command: string;
 }
 
+/** A file that came with the message (a measurement CSV): its name and text. */
+export interface Attachment {
+  readonly name: string;
+  readonly text: string;
+}
+
 export interface HandleContext {
   readonly surface: Surface;
   readonly caller: Caller;
@@ -65,6 +71,8 @@ export interface HandleContext {
   readonly effects?: EffectLog;
   /** The fab's four-point probe head (PROBE_SPACING_MM): pin spacing in cm, for readings that give none. */
   readonly probeSpacingCm?: number;
+  /** A file sent with the message (`map`, `record … map`); absent when none was. */
+  readonly attachment?: Attachment;
   /** Lot records (record, lot, flags, clear, digest); absent where no lot store is wired. */
   readonly lots?: LotService;
 }

@@ -15,6 +15,7 @@ import { crossoverCommand } from './crossover.js';
 import { layerCommand } from './layer.js';
 import { hallCommand } from './hall.js';
 import { vdpCommand } from './vdp.js';
+import { mapCommand } from './map.js';
 import { whyCommand } from './why.js';
 import { clearCommand } from './lots/clear.js';
 import { digestCommand } from './lots/digest.js';
@@ -33,6 +34,7 @@ export const COMMANDS: readonly CommandSpec<any>[] = [
   layerCommand,
   hallCommand,
   vdpCommand,
+  mapCommand,
   recordCommand,
   lotCommand,
   flagsCommand,

@@ -6,7 +6,7 @@
 import type { Problem } from '../physics/problems.js';
 import { CONFIRM_PROCEDURE } from './cautions.js';
 import { problemsToWarnings } from './messages.js';
-import type { Derivation, ReplyError, ReplyInput, ReplyModel, ReplyOk, ReplySection, ReplyValue, ReplyWarning } from './reply.js';
+import type { Derivation, ReplyError, ReplyPicture, ReplyInput, ReplyModel, ReplyOk, ReplySection, ReplyValue, ReplyWarning } from './reply.js';
 
 export interface OkParts {
   readonly command: string;
@@ -22,6 +22,7 @@ export interface OkParts {
   readonly derivation?: Derivation;
   /** Defaults to true: a value someone may act on. Help and model lists pass false. */
   readonly decision?: boolean;
+  readonly picture?: ReplyPicture;
 }
 
 export interface ReplyIdentity {
@@ -48,6 +49,7 @@ export function okReply(identity: ReplyIdentity, parts: OkParts): ReplyOk {
     ...(parts.sections ? { sections: parts.sections } : {}),
     ...(parts.derivation ? { derivation: parts.derivation } : {}),
     decision,
+    ...(parts.picture ? { picture: parts.picture } : {}),
   };
 }
 

@@ -57,6 +57,60 @@ export interface Derivation {
   readonly sources: readonly string[];
 }
 
+/**
+ * A wafer map drawn from a measurement file: what the picture renderer needs, and (in the JSON)
+ * every site's conversion. Arrays are per site, in file order; null where a site has no value.
+ */
+export interface WaferMapPicture {
+  readonly kind: 'waferMap';
+  readonly title: string;
+  /** The quantity coloured on the map ('Sheet resistance') and its unit ('Ω/□'). */
+  readonly quantityLabel: string;
+  readonly unit: string;
+  readonly diameterMm: number;
+  readonly edgeExclusionMm: number;
+  /** Statistics lines shown beside the map. */
+  readonly statistics: readonly string[];
+  readonly sites: {
+    readonly name: readonly string[];
+    readonly line: readonly number[];
+    readonly xMm: readonly number[];
+    readonly yMm: readonly number[];
+    /** The shown quantity. */
+    readonly value: readonly (number | null)[];
+    readonly sheetResistanceOhmPerSq?: readonly (number | null)[];
+    readonly resistivityOhmCm?: readonly (number | null)[];
+    readonly dopantDensityPerCm3?: readonly (number | null)[];
+    readonly thicknessUm?: readonly (number | null)[];
+    /** Inside the edge exclusion (counted in the statistics). */
+    readonly included: readonly boolean[];
+    readonly outlier: readonly boolean[];
+  };
+}
+
+/** A trend chart: readings in time order against the spec window and control limits. */
+export interface TrendPicture {
+  readonly kind: 'trend';
+  readonly title: string;
+  readonly quantityLabel: string;
+  readonly unit: string;
+  readonly points: readonly {
+    readonly at: string;
+    readonly value: number;
+    /** Lot and wafer, e.g. 'LOT-A17 w3'. */
+    readonly label: string;
+    readonly lot: string;
+    readonly flagged: boolean;
+    /** Western Electric rules this point completes (1–4). */
+    readonly rules: readonly number[];
+  }[];
+  readonly lotMeans: readonly { readonly at: string; readonly value: number; readonly lot: string }[];
+  readonly spec?: { readonly min?: number; readonly max?: number; readonly target?: number };
+  readonly control?: { readonly centre: number; readonly lower: number; readonly upper: number };
+}
+
+export type ReplyPicture = WaferMapPicture | TrendPicture;
+
 export interface ReplyOk {
   readonly ok: true;
   readonly id: string;
@@ -74,6 +128,8 @@ export interface ReplyOk {
   readonly derivation?: Derivation;
   /** Whether the result can drive a decision (then the procedure caution is always present). */
   readonly decision: boolean;
+  /** Data for a picture (wafer map, trend chart); the renderers draw it. */
+  readonly picture?: ReplyPicture;
 }
 
 /** One answer to a question the bot asks: the short answer to type, and the whole command it runs. */
