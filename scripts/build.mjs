@@ -19,7 +19,7 @@ await build({
   target: 'node20',
   outdir: 'dist',
   // better-sqlite3 loads a native addon; pg-native is pg's optional native driver (not used).
-  external: ['better-sqlite3', 'pg-native'],
+  external: ['better-sqlite3', 'pg-native', '@resvg/resvg-js'],
   // Some bundled CommonJS packages call require(); give ES modules one.
   banner: { js: "import { createRequire as __shiftprobeRequire } from 'node:module'; const require = __shiftprobeRequire(import.meta.url);" },
   minify: true,

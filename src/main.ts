@@ -5,15 +5,18 @@
  *   shiftprobe --serve              every configured surface (Slack…), otherwise the local console
  *   shiftprobe                      (no command) the same
  *   shiftprobe --backup <file>      an online copy of the SQLite database (safe while it runs)
+ *   shiftprobe --file wafer.csv [--png map.png] "<command>"
+ *                                   the command gets the file (a measurement CSV for `map`);
+ *                                   --png writes the picture of any reply that has one
  *
  * The only module that knows every part: it reads the settings, opens the storage backend,
  * builds the application layer, starts any number of surfaces in one process and the one daily
  * summary job, and stops them in order. Exit 78 (EX_CONFIG) for anything the operator must fix
  * in the settings, with a message naming the setting and no stack trace.
  */
-import { existsSync, mkdirSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { userInfo } from 'node:os';
-import { dirname, join } from 'node:path';
+import { basename, dirname, join } from 'node:path';
 import { createLogger, type AppLogger } from './adapters/log.js';
 import { Application, StartupError, type ApplicationOptions, type Handler } from './app/application.js';
 import type { DailySummaryJob } from './app/daily-summary.js';
@@ -37,6 +40,8 @@ export interface MainIo {
 
 const USAGE = [
   'usage: shiftprobe [--json] "<command>"   one answer, e.g. shiftprobe "rho 8.2 ohm-cm p"',
+  '       shiftprobe --file wafer.csv [--png map.png] "map thick 525um p"',
+  '                                        the command gets the file; --png writes the reply\'s picture',
   '       shiftprobe --backup <file>       a consistent copy of the SQLite database, taken while it runs',
   '       shiftprobe                       the local console (or the chat surfaces, when configured)',
 ].join('\n');
@@ -52,19 +57,35 @@ export async function main(argv: readonly string[], io: MainIo = process as unkn
   }
   const backupAt = argv.indexOf('--backup');
   if (backupAt >= 0) return backup(argv[backupAt + 1], io);
-  const unknownFlag = argv.find((a) => a.startsWith('--') && a !== '--json' && a !== '--serve');
+  const withValue = takeValueFlags(argv, ['--file', '--png']);
+  if ('error' in withValue) {
+    io.stderr.write(`shiftprobe: ${withValue.error}\n${USAGE}\n`);
+    return 2;
+  }
+  const rest = withValue.rest;
+  const unknownFlag = rest.find((a) => a.startsWith('--') && a !== '--json' && a !== '--serve');
   if (unknownFlag) {
     io.stderr.write(`shiftprobe: unknown option ${unknownFlag}\n${USAGE}\n`);
     return 2;
   }
-  const text = argv.filter((a) => a !== '--json' && a !== '--serve').join(' ');
+  const text = rest.filter((a) => a !== '--json' && a !== '--serve').join(' ');
   const loaded = loadConfig(readEnvironment({ env: io.env }));
   if (!loaded.ok) {
     io.stderr.write(describeConfigProblems(loaded.problems) + '\n');
     return EX_CONFIG;
   }
   const config = loaded.config;
-  if (text.trim() !== '' && !serveFlag) return oneShot(text, json, config, io);
+  const filePath = withValue.values['--file'];
+  const pngPath = withValue.values['--png'];
+  if ((filePath !== undefined || pngPath !== undefined) && text.trim() === '') {
+    io.stderr.write(`shiftprobe: --file and --png go with a command, e.g. shiftprobe --file wafer.csv --png map.png "map thick 525um p"\n`);
+    return 2;
+  }
+  if (text.trim() !== '' && !serveFlag) {
+    const attachment = filePath === undefined ? undefined : readAttachment(filePath, io);
+    if (attachment === null) return 2;
+    return oneShot(text, json, config, io, { ...(attachment ? { attachment } : {}), ...(pngPath !== undefined ? { pngPath } : {}) });
+  }
   if (surfaceOf(config) === 'serve') return serve(config, { io, env: io.env });
   return startConsole(config, io);
 }
@@ -155,13 +176,74 @@ export function localOperator(env: Readonly<Record<string, string | undefined>>,
   return { userId: name, displayName: name, channelId: surface };
 }
 
-async function oneShot(text: string, json: boolean, config: Config, io: MainIo): Promise<number> {
+/** `--file <path>` and `--png <path>` taken out of argv (each once, each with its path). */
+function takeValueFlags(argv: readonly string[], flags: readonly string[]): { values: Record<string, string>; rest: string[] } | { error: string } {
+  const values: Record<string, string> = {};
+  const rest: string[] = [];
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i]!;
+    const eq = a.indexOf('=');
+    const flag = eq > 0 ? a.slice(0, eq) : a;
+    if (!flags.includes(flag)) {
+      rest.push(a);
+      continue;
+    }
+    const value = eq > 0 ? a.slice(eq + 1) : argv[++i];
+    if (value === undefined || value === '' || value.startsWith('--')) return { error: `${flag} needs a file path after it, e.g. ${flag} ${flag === '--png' ? 'map.png' : 'wafer.csv'}` };
+    if (values[flag] !== undefined) return { error: `${flag} is given twice` };
+    values[flag] = value;
+  }
+  return { values, rest };
+}
+
+/** Largest file `--file` reads: 10 000 sites of a few columns fit in well under 2 MB. */
+const MAX_ATTACHMENT_BYTES = 8 * 1024 * 1024;
+
+/** The `--file` attachment, or null after telling the person what is wrong. */
+function readAttachment(path: string, io: MainIo): { name: string; text: string } | null {
+  try {
+    const size = statSync(path).size;
+    if (size > MAX_ATTACHMENT_BYTES) {
+      io.stderr.write(`shiftprobe: ${path} is ${(size / 1048576).toFixed(1)} MB; a measurement file is at most 8 MB (10 000 sites)\n`);
+      return null;
+    }
+    return { name: basename(path), text: readFileSync(path, 'utf8') };
+  } catch (e) {
+    const code = (e as NodeJS.ErrnoException).code;
+    io.stderr.write(`shiftprobe: cannot read ${path}: ${code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'it is a folder' : code === 'EACCES' ? 'permission denied' : 'unreadable'}\n`);
+    return null;
+  }
+}
+
+async function oneShot(
+  text: string,
+  json: boolean,
+  config: Config,
+  io: MainIo,
+  extra: { attachment?: { name: string; text: string }; pngPath?: string } = {},
+): Promise<number> {
   const app = await openApplication(config, io.stderr);
   if (!app) return EX_CONFIG;
   try {
-    const asked = await app.ask({ text, surface: 'cli', caller: localOperator(io.env, 'cli') });
+    const asked = await app.ask({ text, surface: 'cli', caller: localOperator(io.env, 'cli'), ...(extra.attachment ? { attachment: extra.attachment } : {}) });
     if (asked.duplicate) return 0; // no event key on the CLI: cannot happen
     io.stdout.write((json ? renderJson(asked.reply) : renderText(asked.reply, { width: io.stdout.columns ?? 88 })) + '\n');
+    if (extra.pngPath !== undefined && asked.reply.ok) {
+      if (!asked.reply.picture) {
+        io.stderr.write(`shiftprobe: this reply has no picture; ${extra.pngPath} not written (map and trend replies have one)\n`);
+      } else {
+        // Loaded only here: the rasteriser stays out of every other start.
+        const { replyPng } = await import('./render/picture/png.js');
+        try {
+          writeFileSync(extra.pngPath, replyPng(asked.reply)!);
+          io.stderr.write(`shiftprobe: picture written to ${extra.pngPath}\n`);
+        } catch (e) {
+          const code = (e as NodeJS.ErrnoException).code;
+          io.stderr.write(`shiftprobe: could not write ${extra.pngPath}: ${code === 'ENOENT' ? 'no such folder' : code === 'EACCES' ? 'permission denied' : code === 'EISDIR' ? 'it is a folder' : 'write failed'}\n`);
+          return 1;
+        }
+      }
+    }
     return asked.reply.ok ? 0 : 2;
   } finally {
     await app.close();

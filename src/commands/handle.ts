@@ -40,7 +40,7 @@ const IMPLIED_VERB: Partial<Record<Dimension, string>> = {
 };
 
 /** Lot commands start with a lot id, which is never read as a type word. */
-const LOT_ID_FIRST = new Set(['record', 'lot', 'clear']);
+const LOT_ID_FIRST = new Set(['record', 'lot', 'clear', 'trend']);
 
 export async function handle(text: string, ctx: HandleContext): Promise<Reply> {
   const effects = new Effects();

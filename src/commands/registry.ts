@@ -22,6 +22,7 @@ import { digestCommand } from './lots/digest.js';
 import { flagsCommand } from './lots/flags.js';
 import { lotCommand } from './lots/lot.js';
 import { recordCommand } from './lots/record.js';
+import { trendCommand } from './lots/trend.js';
 
 export const COMMANDS: readonly CommandSpec<any>[] = [
   rhoCommand,
@@ -40,6 +41,7 @@ export const COMMANDS: readonly CommandSpec<any>[] = [
   flagsCommand,
   clearCommand,
   digestCommand,
+  trendCommand,
   // (more commands are registered here)
   modelsCommand,
   whyCommand,

@@ -168,6 +168,8 @@ export interface LotRepository {
   getLot(lotId: string): Promise<LotHistory | undefined>;
   /** Known lot ids that start with a prefix (for "did you mean"). */
   findLotIds(prefix: string, limit: number): Promise<string[]>;
+  /** Lots whose current product is `productId`, by lot id (for a product's trend chart). */
+  lotIdsOfProduct(productId: string, limit: number): Promise<string[]>;
   listFlags(query: FlagQuery): Promise<FlagWithProduct[]>;
   countReadings(): Promise<number>;
   countLots(): Promise<number>;

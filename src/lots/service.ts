@@ -12,9 +12,9 @@ import { lotView, type LotView } from './lot-view.js';
 import { mayWrite, type LotAction, type Permissions } from './permissions.js';
 import type { LotPhysics } from './physics.js';
 import { planClear, planRecord } from './plan.js';
-import { RecordRequest, type Actor } from './readings.js';
+import { RecordRequest, type Actor, type StoredReading } from './readings.js';
 import type { ClearOutcome, FlagWithProduct, LotRepository, RecordOutcome } from './repository.js';
-import type { SpecCatalog } from './spec/schema.js';
+import type { Product, SpecCatalog } from './spec/schema.js';
 import { localDate, recentSlots, startOfLocalDay, type Clock } from './time.js';
 
 export interface LotServiceDeps {
@@ -138,6 +138,45 @@ export class LotService {
     const history = await this.deps.repo.getLot(lotId);
     if (!history) return { ok: false, error: { code: 'unknown_lot', lotId } };
     return { ok: true, value: lotView(history, this.deps.specs()) };
+  }
+
+  /**
+   * The readings behind a trend chart: the current (not corrected) resistivity readings of one
+   * lot, or of every lot of a product recorded since `sinceIso`, in time order, with the product
+   * (for its window) and `history`: the product's readings the control limits come from (the
+   * lot's own when it has no product). At most `limit` lots are read.
+   */
+  async trendReadings(
+    target: { readonly lotId: string } | { readonly productId: string; readonly sinceIso: string },
+    limit = 500,
+  ): Promise<Result<{ product?: Product; readings: StoredReading[]; history: StoredReading[]; lotCount: number }>> {
+    const usable = (r: StoredReading) => r.supersededBy === undefined && r.quantity !== 'type' && r.resistivityOhmCm !== undefined;
+    const byTime = (a: StoredReading, b: StoredReading) => (a.recordedAt < b.recordedAt ? -1 : a.recordedAt > b.recordedAt ? 1 : a.id - b.id);
+    const catalog = this.deps.specs();
+    const productReadings = async (productId: string) => {
+      const ids = await this.deps.repo.lotIdsOfProduct(productId, limit);
+      const out: StoredReading[] = [];
+      for (const id of ids) {
+        const h = await this.deps.repo.getLot(id);
+        if (h) out.push(...h.readings.filter(usable));
+      }
+      return { readings: out.sort(byTime), lots: ids.length };
+    };
+    if ('lotId' in target) {
+      const lotId = normalizeLotId(target.lotId, this.deps.lotIds);
+      if (!lotId) return this.badLotId(target.lotId);
+      const h = await this.deps.repo.getLot(lotId);
+      if (!h) return { ok: false, error: { code: 'unknown_lot', lotId } };
+      const readings = h.readings.filter(usable).sort(byTime);
+      const product = h.lot.productId !== undefined ? catalog.find(h.lot.productId) : undefined;
+      const history = h.lot.productId !== undefined ? (await productReadings(h.lot.productId)).readings : readings;
+      return { ok: true, value: { ...(product ? { product } : {}), readings, history, lotCount: 1 } };
+    }
+    const product = catalog.find(target.productId);
+    const productId = product?.id ?? target.productId;
+    const all = await productReadings(productId);
+    const readings = all.readings.filter((r) => r.recordedAt >= target.sinceIso);
+    return { ok: true, value: { ...(product ? { product } : {}), readings, history: all.readings, lotCount: new Set(readings.map((r) => r.lotId)).size } };
   }
 
   /** Lot ids known to the store that start like `text` (for "did you mean"). */

@@ -9,6 +9,40 @@ const Value = z.object({ value: z.union([z.number(), z.string()]), unit: z.strin
 const Input = z.object({ value: z.union([z.number(), z.string()]), unit: z.string().optional(), label: z.string(), asTyped: z.string().optional() });
 const Warning = z.object({ code: z.string(), message: z.string() });
 
+const Nullable = z.array(z.number().nullable());
+const WaferMapPicture = z.object({
+  kind: z.literal('waferMap'),
+  title: z.string(),
+  quantityLabel: z.string(),
+  unit: z.string(),
+  diameterMm: z.number(),
+  edgeExclusionMm: z.number(),
+  statistics: z.array(z.string()),
+  sites: z.object({
+    name: z.array(z.string()),
+    line: z.array(z.number()),
+    xMm: z.array(z.number()),
+    yMm: z.array(z.number()),
+    value: Nullable,
+    sheetResistanceOhmPerSq: Nullable.optional(),
+    resistivityOhmCm: Nullable.optional(),
+    dopantDensityPerCm3: Nullable.optional(),
+    thicknessUm: Nullable.optional(),
+    included: z.array(z.boolean()),
+    outlier: z.array(z.boolean()),
+  }),
+});
+const TrendPicture = z.object({
+  kind: z.literal('trend'),
+  title: z.string(),
+  quantityLabel: z.string(),
+  unit: z.string(),
+  points: z.array(z.object({ at: z.string(), value: z.number(), label: z.string(), lot: z.string(), flagged: z.boolean(), rules: z.array(z.number()) })),
+  lotMeans: z.array(z.object({ at: z.string(), value: z.number(), lot: z.string() })),
+  spec: z.object({ min: z.number().optional(), max: z.number().optional(), target: z.number().optional() }).optional(),
+  control: z.object({ centre: z.number(), lower: z.number(), upper: z.number() }).optional(),
+});
+
 export const JsonReplyOk = z.object({
   ok: z.literal(true),
   id: z.string().describe('result id: `why <id>` shows the derivation'),
@@ -30,6 +64,7 @@ export const JsonReplyOk = z.object({
       sources: z.array(z.string()),
     })
     .optional(),
+  picture: z.union([WaferMapPicture, TrendPicture]).optional().describe('data of the reply\'s picture (wafer map with every site\'s conversion, or trend chart)'),
 });
 
 export const JsonReplyError = z.object({

@@ -3,7 +3,7 @@
  *   { ok: true, id, command, values: { <key>: { value, unit, label } }, inputs, assumptions,
  *     model: { id, citation, … }, warnings: [{ code, message }], cautions }
  *   { ok: false, error: { code, message, usage } }
- * Extra fields (title, createdAt, sections, derivation) are additions; the contract's fields
+ * Extra fields (title, createdAt, sections, derivation, picture) are additions; the contract's fields
  * keep their names and shapes.
  */
 import type { Reply } from '../reply/reply.js';
@@ -28,6 +28,7 @@ export function toJson(reply: Reply): JsonReply {
     cautions: reply.cautions,
     ...(reply.sections ? { sections: reply.sections } : {}),
     ...(reply.derivation ? { derivation: reply.derivation } : {}),
+    ...(reply.picture ? { picture: reply.picture } : {}),
   };
 }
 

@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { handle } from '../../src/commands/handle.js';
 import { COMMANDS } from '../../src/commands/registry.js';
@@ -9,7 +10,11 @@ describe('every help example answers', () => {
   for (const spec of COMMANDS) {
     for (const example of spec.help.examples) {
       it(`${spec.verb}: "${example}"`, async () => {
-        const ctx = testContext();
+        // `map` reads the measurement file sent with the message: the demo 200 mm file.
+        const ctx =
+          spec.verb === 'map'
+            ? testContext({ attachment: { name: 'LOT-A17-w03-rs.csv', text: readFileSync('examples/maps/LOT-A17-w03-rs.csv', 'utf8') } })
+            : testContext();
         if (spec.verb === 'why') await handle('rho 8.2 ohm-cm p', ctx);
         const r = await handle(example, ctx);
         if (!r.ok) throw new Error(`${example}: ${r.error.code} ${r.error.message}`);

@@ -273,6 +273,11 @@ export class PgLotRepository implements LotRepository {
     return r.rows.map((row) => row.lot_id);
   }
 
+  async lotIdsOfProduct(productId: string, limit: number): Promise<string[]> {
+    const r = await this.pool.query<{ lot_id: string }>('SELECT lp.lot_id FROM lot_products lp WHERE lower(lp.product_id) = lower($1) AND lp.id = (SELECT MAX(id) FROM lot_products WHERE lot_id = lp.lot_id) ORDER BY lp.lot_id LIMIT $2', [productId, limit]);
+    return r.rows.map((row) => row.lot_id);
+  }
+
   async listFlags(query: FlagQuery): Promise<FlagWithProduct[]> {
     const where: string[] = [];
     const params: (string | number)[] = [];

@@ -108,6 +108,7 @@ export class SqliteLotRepository implements LotRepository {
          VALUES (?, ?, ?, ?, ?, ?, ?, ?)`,
       ),
       lotIdsByPrefix: p('SELECT lot_id FROM lots WHERE lot_id >= ? AND lot_id < ? ORDER BY lot_id LIMIT ?'),
+      lotIdsOfProduct: p('SELECT lp.lot_id FROM lot_products lp WHERE lower(lp.product_id) = lower(?) AND lp.id = (SELECT MAX(id) FROM lot_products WHERE lot_id = lp.lot_id) ORDER BY lp.lot_id LIMIT ?'),
       countReadings: p('SELECT count(*) AS n FROM lot_readings'),
       insertClaim: p(
         `INSERT OR IGNORE INTO digest_runs (channel, local_date, slot_at, claimed_at, claimed_by, late, status, attempts)
@@ -310,6 +311,10 @@ export class SqliteLotRepository implements LotRepository {
     const upper = prefix.toUpperCase();
     const rows = this.st.lotIdsByPrefix.all(upper, `${upper}\uffff`, limit) as { lot_id: string }[];
     return rows.map((r) => r.lot_id);
+  }
+
+  async lotIdsOfProduct(productId: string, limit: number): Promise<string[]> {
+    return (this.st.lotIdsOfProduct.all(productId, limit) as { lot_id: string }[]).map((r) => r.lot_id);
   }
 
   async listFlags(query: FlagQuery): Promise<FlagWithProduct[]> {
