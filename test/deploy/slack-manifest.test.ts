@@ -16,7 +16,7 @@ describe.each(['socket', 'http'])('the %s manifest', (mode) => {
   const m = read(mode);
 
   it('asks for exactly the scopes the bot uses, and no user scopes', () => {
-    expect([...m.oauth_config.scopes.bot].sort()).toEqual(['app_mentions:read', 'chat:write', 'commands', 'im:history', 'users:read']);
+    expect([...m.oauth_config.scopes.bot].sort()).toEqual(['app_mentions:read', 'chat:write', 'commands', 'files:read', 'files:write', 'im:history', 'users:read']);
     expect(m.oauth_config.scopes.user).toBeUndefined();
   });
 

@@ -2,6 +2,7 @@
  * One question from Slack to the application layer: who asked, where, under which event key
  * and conversation (the application claims the event and loads and saves the memory).
  */
+import type { Attachment } from '../../commands/context.js';
 import type { Reply } from '../../reply/reply.js';
 import type { SlackDeps } from './deps.js';
 import { markAnswered } from './errors.js';
@@ -38,7 +39,7 @@ export interface Asked {
  * Ask the application once; null when the event was handled already (a retry, a
  * redelivery, or another instance has it).
  */
-export async function ask(deps: SlackDeps, text: string, where: Where): Promise<Asked | null> {
+export async function ask(deps: SlackDeps, text: string, where: Where, attachment?: Attachment): Promise<Asked | null> {
   const displayName = deps.displayName ? await deps.displayName(where.userId).catch(() => undefined) : undefined;
   const caller = { userId: where.userId, channelId: where.channelId, ...(displayName ? { displayName } : {}) };
   const asked = await deps.ask({
@@ -48,6 +49,7 @@ export async function ask(deps: SlackDeps, text: string, where: Where): Promise<
     eventKey: where.eventKey,
     conversationKey: conversationKey(where),
     log: deps.logger,
+    ...(attachment ? { attachment } : {}),
   });
   if (asked.duplicate) return null;
   return {

@@ -24,10 +24,10 @@ export const FAKE_TEAM = 'T0HGF3';
 export const FAKE_BOT_USER = 'U0SHIFTBOT';
 export const FAKE_BOT_ID = 'B0SHIFTBOT';
 
-async function readBody(req: IncomingMessage): Promise<string> {
+async function readBytes(req: IncomingMessage): Promise<Buffer> {
   const chunks: Buffer[] = [];
   for await (const c of req) chunks.push(c as Buffer);
-  return Buffer.concat(chunks).toString('utf8');
+  return Buffer.concat(chunks);
 }
 
 /** Form values that hold JSON (blocks, view, …) are decoded, as Slack does. */
@@ -48,8 +48,21 @@ function decodeParams(raw: string, contentType: string | undefined): Record<stri
   return out;
 }
 
+/** A file uploaded through files.uploadV2 (the bytes sent to the upload URL, and the completion call). */
+export interface Upload {
+  readonly fileId: string;
+  readonly bytes: Buffer;
+}
+
 export class FakeSlack {
   readonly calls: ApiCall[] = [];
+  /** Bytes received at upload URLs, by file id. */
+  readonly uploads: Upload[] = [];
+  /** Files a test shares in a message: served at /files/<name> to a request with a bot token. */
+  private readonly sharedFiles = new Map<string, { body: string; contentType: string }>();
+  /** Authorization headers of file downloads. */
+  readonly downloads: { path: string; authorization: string | undefined }[] = [];
+  private uploadCount = 0;
   readonly responsePosts: ResponseUrlPost[] = [];
   private readonly overrides = new Map<string, Answer>();
   /** Milliseconds to wait before answering a Web API method (a slow Slack). */
@@ -64,6 +77,13 @@ export class FakeSlack {
 
   responseUrl(id: string): string {
     return `http://127.0.0.1:${this.port}/respond/${id}`;
+  }
+
+  /** A file as Slack would list it in a message event, its private URL on this fake. */
+  shareFile(name: string, body: string, contentType = 'text/csv'): Record<string, unknown> {
+    this.sharedFiles.set(name, { body, contentType });
+    const url = `http://127.0.0.1:${this.port}/files/${encodeURIComponent(name)}`;
+    return { id: `F0${name.length}${this.sharedFiles.size}`, name, mimetype: contentType, filetype: name.endsWith('.csv') ? 'csv' : 'text', size: Buffer.byteLength(body), url_private: url, url_private_download: url };
   }
 
   /** Replace the answer to one Web API method. */
@@ -105,6 +125,12 @@ export class FakeSlack {
         return { ok: true, view: { id: 'V0PICKER', ...(params.view as object) } };
       case 'conversations.history':
         return { ok: false, error: 'missing_scope', needed: 'channels:history', provided: 'commands,chat:write,app_mentions:read,im:history' };
+      case 'files.getUploadURLExternal': {
+        const fileId = `F0UP${++this.uploadCount}`;
+        return { ok: true, file_id: fileId, upload_url: `http://127.0.0.1:${this.port}/upload/${fileId}` };
+      }
+      case 'files.completeUploadExternal':
+        return { ok: true, files: ((params.files as { id: string; title?: string }[]) ?? []).map((f) => ({ id: f.id, title: f.title })) };
       case 'apps.connections.open':
         return { ok: false, error: 'not_allowed_token_type' };
       default:
@@ -115,7 +141,25 @@ export class FakeSlack {
   async start(): Promise<void> {
     this.server = createServer(async (req, res) => {
       const url = new URL(req.url ?? '/', 'http://127.0.0.1');
-      const raw = await readBody(req);
+      const bytes = await readBytes(req);
+      const raw = bytes.toString('utf8');
+      if (url.pathname.startsWith('/upload/')) {
+        this.uploads.push({ fileId: url.pathname.slice('/upload/'.length), bytes });
+        res.writeHead(200, { 'content-type': 'text/plain' }).end('OK - ' + bytes.length);
+        return;
+      }
+      if (url.pathname.startsWith('/files/')) {
+        const name = decodeURIComponent(url.pathname.slice('/files/'.length));
+        this.downloads.push({ path: url.pathname, authorization: req.headers.authorization });
+        const f = this.sharedFiles.get(name);
+        // Slack answers a download without a valid token with its sign-in page.
+        if (!f || !req.headers.authorization?.startsWith('Bearer xoxb-')) {
+          res.writeHead(200, { 'content-type': 'text/html' }).end('<html>sign in</html>');
+          return;
+        }
+        res.writeHead(200, { 'content-type': f.contentType }).end(f.body);
+        return;
+      }
       if (url.pathname.startsWith('/respond/')) {
         this.responsePosts.push({ id: url.pathname.slice('/respond/'.length), body: JSON.parse(raw || '{}') as Record<string, unknown> });
         res.writeHead(200, { 'content-type': 'text/plain' }).end('ok');
