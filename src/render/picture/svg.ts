@@ -50,3 +50,12 @@ export function niceTicks(min: number, max: number, target = 6): number[] {
   for (let v = Math.ceil(min / step) * step; v <= max + step * 1e-9; v += step) out.push(Number(v.toPrecision(12)));
   return out;
 }
+
+/**
+ * Many equal dots as one path (a circle per subpath): the rasteriser's cost is per element, so
+ * 10 000 site dots drawn as one path take a fraction of the time of 10 000 circles.
+ */
+export function dotsPath(points: readonly (readonly [number, number])[], r: number): string {
+  const d = points.map(([x, y]) => `M${n2(x - r)},${n2(y)}a${r},${r} 0 1,0 ${n2(2 * r)},0a${r},${r} 0 1,0 ${n2(-2 * r)},0`).join('');
+  return d;
+}

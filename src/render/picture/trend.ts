@@ -6,12 +6,14 @@
  */
 import { formatNumber } from '../../reply/format.js';
 import type { TrendPicture } from '../../reply/reply.js';
-import { INK, n2, niceTicks, svgDocument, text } from './svg.js';
+import { dotsPath, INK, n2, niceTicks, svgDocument, text } from './svg.js';
 
 export const TREND_WIDTH = 1000;
 export const TREND_HEIGHT = 640;
 const PLOT = { x: 90, y: 90, w: 650, h: 420 };
 const DAY_MS = 86_400_000;
+/** Rule numbers are written over at most this many ringed points. */
+const MAX_RULE_LABELS = 40;
 
 function dayTicks(t0: number, t1: number): number[] {
   const span = Math.max(t1 - t0, DAY_MS) / DAY_MS;
@@ -74,21 +76,33 @@ export function trendSvg(p: TrendPicture): string {
     const d = p.lotMeans.map((m, k) => `${k === 0 ? 'M' : 'L'}${n2(toX(Date.parse(m.at)))},${n2(toY(m.value))}`).join('');
     parts.push(`<path d="${d}" fill="none" stroke="${INK.muted}" stroke-width="1.5"/>`);
   }
-  for (const m of p.lotMeans) {
-    const x = toX(Date.parse(m.at));
-    const y = toY(m.value);
-    parts.push(`<path d="M${n2(x - 7)},${n2(y)}L${n2(x)},${n2(y - 7)}L${n2(x + 7)},${n2(y)}L${n2(x)},${n2(y + 7)}Z" fill="${INK.panel}" stroke="${INK.frame}" stroke-width="1.5"/>`);
-  }
+  const diamonds = p.lotMeans
+    .map((m) => {
+      const x = toX(Date.parse(m.at));
+      const y = toY(m.value);
+      return `M${n2(x - 7)},${n2(y)}L${n2(x)},${n2(y - 7)}L${n2(x + 7)},${n2(y)}L${n2(x)},${n2(y + 7)}Z`;
+    })
+    .join('');
+  if (diamonds) parts.push(`<path d="${diamonds}" fill="${INK.panel}" stroke="${INK.frame}" stroke-width="1.5"/>`);
   const r = p.points.length > 500 ? 2 : 4;
+  const plain: [number, number][] = [];
+  const flagged: [number, number][] = [];
+  const ringed: [number, number][] = [];
   for (const q of p.points) {
-    const x = toX(Date.parse(q.at));
-    const y = toY(q.value);
-    parts.push(`<circle cx="${n2(x)}" cy="${n2(y)}" r="${r}" fill="${q.flagged ? INK.alert : INK.frame}"/>`);
-    if (q.rules.length > 0) {
-      parts.push(`<circle cx="${n2(x)}" cy="${n2(y)}" r="${r + 6}" fill="none" stroke="${INK.alert}" stroke-width="2"/>`);
-      parts.push(text(x, y - r - 10, q.rules.join(','), { size: 12, anchor: 'middle', fill: INK.alert, weight: 'bold' }));
-    }
+    const at: [number, number] = [toX(Date.parse(q.at)), toY(q.value)];
+    (q.flagged ? flagged : plain).push(at);
+    if (q.rules.length > 0) ringed.push(at);
   }
+  // Rule numbers over the rings while they stay readable; beyond that the rings alone (the card
+  // lists every break in words).
+  if (ringed.length <= MAX_RULE_LABELS) {
+    p.points.forEach((q) => {
+      if (q.rules.length > 0) parts.push(text(toX(Date.parse(q.at)), toY(q.value) - r - 10, q.rules.join(','), { size: 12, anchor: 'middle', fill: INK.alert, weight: 'bold' }));
+    });
+  }
+  if (plain.length) parts.push(`<path d="${dotsPath(plain, r)}" fill="${INK.frame}"/>`);
+  if (flagged.length) parts.push(`<path d="${dotsPath(flagged, r)}" fill="${INK.alert}"/>`);
+  if (ringed.length) parts.push(`<path d="${dotsPath(ringed, r + 6)}" fill="none" stroke="${INK.alert}" stroke-width="2"/>`);
   // Legend: one row under the axis.
   const ly = PLOT.y + PLOT.h + 84;
   const legend: [number, string, string][] = [

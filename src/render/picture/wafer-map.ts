@@ -4,9 +4,9 @@
  * a title. Rasterised by png.ts.
  *
  * Fill method: linear interpolation on the Delaunay triangulation of the sites (d3-delaunay):
- * a grid of 200 × 200 cells over the wafer takes, inside each triangle, the barycentric blend
+ * a grid of 120 × 120 cells over the wafer takes, inside each triangle, the barycentric blend
  * of its three sites; the grid is contoured into 14 equal-width bands (d3-contour) and the
- * bands are clipped to the convex hull of the measured sites and to the wafer, so no colour is
+ * bands are clipped to the convex hull of the measured sites (inside the wafer, as every site is), so no colour is
  * drawn where nothing was measured nor beyond the edge. Grid cells outside the hull take the
  * nearest site's value only so that the bands close smoothly at the hull; the clip hides them.
  * Colours: d3-scale-chromatic's cividis, perceptually uniform and readable with the common
@@ -17,11 +17,11 @@ import { Delaunay } from 'd3-delaunay';
 import { interpolateCividis } from 'd3-scale-chromatic';
 import { formatNumber } from '../../reply/format.js';
 import type { WaferMapPicture } from '../../reply/reply.js';
-import { INK, n2, niceTicks, svgDocument, text } from './svg.js';
+import { dotsPath, INK, n2, niceTicks, svgDocument, text } from './svg.js';
 
 export const WAFER_MAP_WIDTH = 1000;
 export const WAFER_MAP_HEIGHT = 760;
-const GRID = 200;
+const GRID = 120;
 const BANDS = 14;
 const MAP = { x: 30, y: 86, size: 640 };
 
@@ -131,8 +131,8 @@ export function waferMapSvg(p: WaferMapPicture): string {
       const bands = hi > lo ? contours().size([GRID, GRID]).thresholds(thresholds)(Array.from(grid)) : [];
       const cell = MAP.size / GRID;
       const hullPath = hull.map(([x, y], k) => `${k === 0 ? 'M' : 'L'}${n2(toX(x))},${n2(toY(y))}`).join('') + 'Z';
-      parts.push(`<defs><clipPath id="measured"><path d="${hullPath}"/></clipPath><clipPath id="wafer"><path d="${outline}"/></clipPath></defs>`);
-      parts.push('<g clip-path="url(#wafer)"><g clip-path="url(#measured)">');
+      parts.push(`<defs><clipPath id="measured"><path d="${hullPath}"/></clipPath></defs>`);
+      parts.push('<g clip-path="url(#measured)">');
       // A uniform map has no bands: the measured area takes the middle colour of the scale.
       if (!(hi > lo)) parts.push(`<path d="${hullPath}" fill="${mapColour(lo, lo, hi)}"/>`);
       for (const band of hi > lo ? bands : []) {
@@ -142,7 +142,7 @@ export function waferMapSvg(p: WaferMapPicture): string {
           .join('');
         if (d) parts.push(`<path d="${d}" fill="${mapColour(mid, lo, hi)}"/>`);
       }
-      parts.push('</g></g>');
+      parts.push('</g>');
     }
   }
   parts.push(`<path d="${outline}" fill="none" stroke="${INK.frame}" stroke-width="2"/>`);
@@ -151,16 +151,18 @@ export function waferMapSvg(p: WaferMapPicture): string {
   }
   // Sites: small dots (fewer, larger dots on sparse maps); outliers ringed in red; excluded hollow.
   const dot = p.sites.xMm.length > 2000 ? 1.2 : p.sites.xMm.length > 400 ? 2 : 3.5;
-  const siteMarks: string[] = [];
-  const outlierMarks: string[] = [];
+  const measured: [number, number][] = [];
+  const excluded: [number, number][] = [];
+  const outliers: [number, number][] = [];
   for (let i = 0; i < p.sites.xMm.length; i++) {
-    const x = n2(toX(p.sites.xMm[i]!));
-    const y = n2(toY(p.sites.yMm[i]!));
-    if (!p.sites.included[i] || p.sites.value[i] === null) siteMarks.push(`<circle cx="${x}" cy="${y}" r="${dot}" fill="none" stroke="${INK.muted}" stroke-width="1"/>`);
-    else siteMarks.push(`<circle cx="${x}" cy="${y}" r="${dot}" fill="${INK.paper}" stroke="${INK.frame}" stroke-width="0.8"/>`);
-    if (p.sites.outlier[i]) outlierMarks.push(`<circle cx="${x}" cy="${y}" r="${dot + 6}" fill="none" stroke="${INK.alert}" stroke-width="2.5"/>`);
+    const at: [number, number] = [toX(p.sites.xMm[i]!), toY(p.sites.yMm[i]!)];
+    if (!p.sites.included[i] || p.sites.value[i] === null) excluded.push(at);
+    else measured.push(at);
+    if (p.sites.outlier[i]) outliers.push(at);
   }
-  parts.push(...siteMarks, ...outlierMarks);
+  if (excluded.length) parts.push(`<path d="${dotsPath(excluded, dot)}" fill="none" stroke="${INK.muted}" stroke-width="1"/>`);
+  if (measured.length) parts.push(`<path d="${dotsPath(measured, dot)}" fill="${INK.paper}" stroke="${INK.frame}" stroke-width="0.8"/>`);
+  if (outliers.length) parts.push(`<path d="${dotsPath(outliers, dot + 6)}" fill="none" stroke="${INK.alert}" stroke-width="2.5"/>`);
 
   // Colour bar with ticks in the value's unit.
   const bar = { x: 720, y: 110, w: 28, h: 330 };
