@@ -28,6 +28,7 @@ import { createMetrics } from './adapters/metrics.js';
 import { proxiedFetch } from './adapters/proxy.js';
 import { openBackend } from './adapters/storage/open.js';
 import { describeConfigProblems, loadConfig, readEnvironment, surfaceOf, type Config } from './config.js';
+import { MAX_FILE_BYTES } from './commands/measurement-file.js';
 import { renderJson } from './render/json.js';
 import { renderText } from './render/text.js';
 
@@ -196,14 +197,11 @@ function takeValueFlags(argv: readonly string[], flags: readonly string[]): { va
   return { values, rest };
 }
 
-/** Largest file `--file` reads: 10 000 sites of a few columns fit in well under 2 MB. */
-const MAX_ATTACHMENT_BYTES = 8 * 1024 * 1024;
-
 /** The `--file` attachment, or null after telling the person what is wrong. */
 function readAttachment(path: string, io: MainIo): { name: string; text: string } | null {
   try {
     const size = statSync(path).size;
-    if (size > MAX_ATTACHMENT_BYTES) {
+    if (size > MAX_FILE_BYTES) {
       io.stderr.write(`shiftprobe: ${path} is ${(size / 1048576).toFixed(1)} MB; a measurement file is at most 8 MB (10 000 sites)\n`);
       return null;
     }

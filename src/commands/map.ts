@@ -12,7 +12,7 @@ import { DopantSchema, identity, readDopant, readModelId } from './common.js';
 import type { Args } from './args.js';
 import type { HandleContext } from './context.js';
 import { analyseMap, type ShownQuantity } from './map-analysis.js';
-import { MeasurementFileError, readMeasurementFile } from './measurement-file.js';
+import { MeasurementFileError, readMeasurementFile, type MeasurementFile } from './measurement-file.js';
 import { defineCommand } from './spec.js';
 
 export const MapOptionsSchema = z.object({
@@ -62,22 +62,18 @@ export function readMapOptions(args: Args): MapOptionsRequest {
   }
   for (const [k, q] of Object.entries({ thickness, spacing, diameter, edge })) if (q) asTyped[k] = q.raw;
   const d = readDopant(args);
+  const modelId = readModelId(args);
   return {
     ...(thickness ? { thicknessCm: thickness.value } : {}),
     ...(spacing ? { spacingCm: spacing.value } : {}),
     ...(diameter ? { diameterMm: diameter.value * 10 } : {}),
     ...(edge ? { edgeExclusionMm: edge.value * 10 } : {}),
     ...(d ? { dopant: d.dopant, dopantAsTyped: d.raw } : {}),
-    ...(readModelIdSafe(args) ?? {}),
+    ...(modelId ? { modelId } : {}),
     ...(show ? { show } : {}),
     ...(unitWord ? { valueUnit: unitWord } : {}),
     asTyped,
   };
-}
-
-function readModelIdSafe(args: Args): { modelId: string } | undefined {
-  const id = readModelId(args);
-  return id ? { modelId: id } : undefined;
 }
 
 /** The request's inputs as the reply shows them. */
@@ -93,10 +89,10 @@ export function mapInputs(req: MapOptionsRequest, fileName: string, sites: numbe
 }
 
 /** Read the attached file for `map` (errors as ArgError so they reach the person with the form). */
-export function readAttachedFile(ctx: HandleContext, valueUnit: string | undefined) {
+export async function readAttachedFile(ctx: HandleContext, valueUnit: string | undefined): Promise<MeasurementFile> {
   if (!ctx.attachment) throw new ArgError('missing_file', NO_FILE);
   try {
-    return readMeasurementFile(ctx.attachment.name, ctx.attachment.text, valueUnit ? { valueUnit } : {});
+    return await readMeasurementFile(ctx.attachment.name, ctx.attachment.text, valueUnit ? { valueUnit } : {});
   } catch (e) {
     if (e instanceof MeasurementFileError) throw new ArgError('bad_file', `${ctx.attachment.name}, ${e.message}. The layout is in docs/measurement-files.md.`);
     throw e;
@@ -126,12 +122,12 @@ export const mapCommand = defineCommand<MapOptionsRequest>({
   parse(args) {
     return readMapOptions(args);
   },
-  run(req, ctx) {
+  async run(req, ctx) {
     let file;
     let analysis;
     const spacingCm = req.spacingCm ?? ctx.probeSpacingCm;
     try {
-      file = readAttachedFile(ctx, req.valueUnit);
+      file = await readAttachedFile(ctx, req.valueUnit);
       analysis = analyseMap(file, {
         ...req,
         ...(spacingCm !== undefined ? { spacingCm, spacingFromHead: req.spacingCm === undefined } : {}),

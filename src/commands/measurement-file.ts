@@ -17,12 +17,14 @@
  *       value       the measured value, its unit in the header or given in the command
  *   - up to 10 000 sites.
  *
- * Every problem is a MeasurementFileError naming the line and what to change.
+ * Every problem is a MeasurementFileError naming the line and what to change. The CSV library is
+ * loaded on the first file, not at start: every other answer starts without it.
  */
-import { parse } from 'csv-parse/sync';
 import { parseQuantity, type Dimension } from './units.js';
 
 export const MAX_SITES = 10_000;
+/** Largest measurement file read (CLI --file, a chat attachment): 10 000 sites fit well under 2 MB. */
+export const MAX_FILE_BYTES = 8 * 1024 * 1024;
 
 export type MeasuredQuantity = 'sheetResistance' | 'resistivity' | 'voltageCurrent' | 'thickness';
 
@@ -131,9 +133,11 @@ function columnsOf(header: readonly string[], line: number, valueUnit: string | 
       out.push({ role, index, header: raw, factor });
       return;
     }
+    const position = role === 'x' || role === 'y';
     if (unitText) {
       const u = unitFactor(unitText, dimension, raw, line);
-      factor = u.factor;
+      // Lengths come back in cm; positions are kept in mm.
+      factor = position ? u.factor * 10 : u.factor;
       dimension = u.dimension;
     } else if (role === 'v' || role === 'i') {
       throw new MeasurementFileError(`give the unit of "${raw}" in the header, e.g. "${role === 'v' ? 'v (mV)' : 'i (mA)'}"`, line);
@@ -141,11 +145,7 @@ function columnsOf(header: readonly string[], line: number, valueUnit: string | 
       throw new MeasurementFileError(`the column "${raw}" has no unit: write it in the header ("value (ohm/sq)") or in the command (map unit ohm/sq …)`, line);
     } else if (role === 'thickness') {
       factor = 1e-4; // µm → cm
-    } else if (role === 'x' || role === 'y') {
-      factor = 0.1; // mm, in cm
     }
-    // x and y are kept in mm: the canonical length is cm, so scale by 10.
-    if (role === 'x' || role === 'y') factor *= 10;
     out.push({ role, index, header: raw, factor, ...(dimension ? { dimension } : {}) });
   });
   return out;
@@ -198,8 +198,12 @@ function friendlyCsvError(e: unknown): MeasurementFileError {
   }
 }
 
+let csv: typeof import('csv-parse/sync') | undefined;
+
 /** Read a measurement file; throws MeasurementFileError (with the line) on any problem. */
-export function readMeasurementFile(name: string, text: string, options: { valueUnit?: string } = {}): MeasurementFile {
+export async function readMeasurementFile(name: string, text: string, options: { valueUnit?: string } = {}): Promise<MeasurementFile> {
+  csv ??= await import('csv-parse/sync');
+  const { parse } = csv;
   const firstLine = text.split(/\r?\n/).find((l) => l.trim() !== '' && !l.trimStart().startsWith('#'));
   if (firstLine === undefined) throw new MeasurementFileError('the file is empty: it needs a header row and one row per site');
   const delimiter: ',' | ';' = (firstLine.match(/;/g)?.length ?? 0) > (firstLine.match(/,/g)?.length ?? 0) ? ';' : ',';

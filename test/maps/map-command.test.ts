@@ -104,7 +104,6 @@ describe('per-site conversion', () => {
 });
 
 describe('bad measurement files get the line and the problem', () => {
-  const three = 'x,y,rs\n0,0,40\n10,0,41\n0,10,42\n';
   const cases: [string, string, RegExp][] = [
     ['a row with a field missing', 'x,y,rs\n0,0,40\n10,0\n', /line 3: this row has a different number of fields/],
     ['a value that is not a number', 'x,y,rs\n0,0,40\n10,0,4o\n', /line 3: the "rs" value "4o" is not a number/],
@@ -143,6 +142,5 @@ describe('bad measurement files get the line and the problem', () => {
   it('a value column takes the unit from the command', async () => {
     const r = await mapWith('map unit ohm/sq diam 100mm', 'x,y,value\n0,0,40\n10,0,41\n0,10,42\n');
     expect(value(r, 'mean')).toBeCloseTo(41, 12);
-    void three;
   });
 });

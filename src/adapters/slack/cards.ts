@@ -5,6 +5,7 @@
 import { renderSlackMessage, type CardAction, type SlackMessage } from '../../render/slack-blocks.js';
 import { isExplainable, isShareable } from '../../reply/kinds.js';
 import type { Reply } from '../../reply/reply.js';
+import { errorReply } from '../../reply/build.js';
 
 /**
  * private: the ephemeral answer to a slash command · thread: the answer to a mention ·
@@ -40,4 +41,9 @@ export function cardFor(
     ...(extra.sharedBy ? { sharedBy: extra.sharedBy } : {}),
     ...(extra.notice ? { notice: extra.notice } : {}),
   });
+}
+
+/** A short note to the person as a small card (a result gone, a file that could not be read). */
+export function noteCard(message: string): SlackMessage {
+  return renderSlackMessage(errorReply('slack', message), { helpHint: false });
 }

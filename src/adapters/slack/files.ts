@@ -11,9 +11,9 @@
  */
 import type { App, Logger } from '@slack/bolt';
 import type { Attachment } from '../../commands/context.js';
+import { MAX_FILE_BYTES } from '../../commands/measurement-file.js';
 import type { ReplyOk } from '../../reply/reply.js';
 
-export const MAX_FILE_BYTES = 8 * 1024 * 1024;
 
 /** The fields of a Slack file object shiftprobe reads. */
 export interface SlackFile {

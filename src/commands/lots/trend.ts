@@ -7,6 +7,7 @@
 import { z } from 'zod';
 import { individualsLimits, INDIVIDUALS_CHART_CITATION } from '../../physics/statistics/shewhart-individuals.js';
 import { WESTERN_ELECTRIC_CITATION, WESTERN_ELECTRIC_RULE_TEXT, westernElectricBreaks, type WesternElectricRule } from '../../physics/statistics/western-electric-1956.js';
+import { placeLabel } from '../../lots/ids.js';
 import type { StoredReading } from '../../lots/readings.js';
 import type { Product } from '../../lots/spec/schema.js';
 import { formatLocal } from '../../lots/time.js';
@@ -51,7 +52,9 @@ export const trendCommand = defineCommand<TrendRequest>({
       const productId = word?.raw ?? args.leftovers()[0];
       if (!productId) throw new ArgError('missing_product', `Say which product, e.g. ${EXAMPLE}`);
       args.flag([productId]);
-      const period = args.literal(Object.fromEntries(Array.from({ length: 3650 }, (_, i) => [`${i + 1}d`, i + 1])) as Record<string, number>);
+      // "30d": whatever kind of token it became, taken by its text as typed.
+      const typed = args.leftovers().find((t) => /^\d{1,4}d$/i.test(t));
+      const period = typed ? args.literal({ [typed]: Number.parseInt(typed, 10) }) : undefined;
       return { productId, days: period?.value ?? DEFAULT_DAYS };
     }
     const first = args.tokens[0];
@@ -88,7 +91,8 @@ export const trendCommand = defineCommand<TrendRequest>({
     for (const b of breaks) rulesAt.set(b.index, [...(rulesAt.get(b.index) ?? []), b.rule]);
     const unit = quantity === 'dopantDensityPerCm3' ? 'cm⁻³' : 'Ω·cm';
     const label = quantity === 'dopantDensityPerCm3' ? 'Dopant density' : 'Resistivity';
-    const place = (x: StoredReading) => `${x.lotId}${x.wafer !== undefined ? ` w${x.wafer}` : ''}${x.site !== undefined ? ` site ${x.site}` : ''}`;
+    const place = (x: StoredReading) => (x.wafer === undefined && x.site === undefined ? x.lotId : `${x.lotId} ${placeLabel(x.wafer, x.site)}`);
+    const spec = specOf(product, quantity);
 
     const lotMeans = new Map<string, { sum: number; n: number; at: string }>();
     points.forEach((x, i) => {
@@ -105,7 +109,7 @@ export const trendCommand = defineCommand<TrendRequest>({
       unit,
       points: points.map((x, i) => ({ at: x.recordedAt, value: values[i]!, label: place(x), lot: x.lotId, flagged: x.verdict === 'flagged', rules: rulesAt.get(i) ?? [] })),
       lotMeans: [...lotMeans.entries()].map(([lot, m]) => ({ lot, at: m.at, value: m.sum / m.n })).sort((a, b) => (a.at < b.at ? -1 : a.at > b.at ? 1 : 0)),
-      ...(specOf(product, quantity) ? { spec: specOf(product, quantity)! } : {}),
+      ...(spec ? { spec } : {}),
       ...(limits ? { control: { centre: limits.centre, lower: limits.lower, upper: limits.upper } } : {}),
     };
 
@@ -141,7 +145,7 @@ export const trendCommand = defineCommand<TrendRequest>({
       {
         heading: 'Limits',
         lines: [
-          product ? `Spec window (${product.id}): ${windowText(quantity, specOf(product, quantity)!.min!, specOf(product, quantity)!.max!)} at 23 °C.` : 'No product spec: no spec window drawn.',
+          product && spec ? `Spec window (${product.id}): ${windowText(quantity, spec.min, spec.max)} at 23 °C.` : 'No product spec: no spec window drawn.',
           limits
             ? `Control limits from ${limits.count} readings of ${product ? `product ${product.id}` : 'this lot'}: centre ${fmt(limits.centre)}, σ̂ = MR̄/1.128 = ${formatNumber(limits.sigma, { sigFigs: 3 })}, limits ${fmt(limits.lower)} … ${fmt(limits.upper)} ${unit}.`
             : 'No control limits: fewer than two readings of history.',

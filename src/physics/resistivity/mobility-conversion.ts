@@ -57,24 +57,6 @@ export function conversionFromMobility(
   const standing: Partial<Record<Dopant, readonly Problem[]>> = {};
   for (const d of dopants) standing[d] = Object.freeze([...(options.standingProblems?.(d) ?? [])]);
 
-  // Bounds of ρ·N = 1/(q·μ(N)) over the bracket, sampled every 0.05 decade and widened 5 %:
-  // the root of ρ(N) = ρt lies in [min/ρt, max/ρt]. Used only to narrow Brent's bracket; a
-  // bracket without a sign change falls back to the full one, so a loose bound costs nothing.
-  const productBounds: Partial<Record<Dopant, Range>> = {};
-  for (const d of dopants) {
-    let min = Number.POSITIVE_INFINITY;
-    let max = 0;
-    for (let u = DENSITY_BRACKET_LOG10_PER_CM3.min; u <= DENSITY_BRACKET_LOG10_PER_CM3.max + 1e-9; u += 0.05) {
-      const n = Math.pow(10, u);
-      const g = rhoOf(n, d) * n;
-      if (Number.isFinite(g) && g > 0) {
-        min = Math.min(min, g);
-        max = Math.max(max, g);
-      }
-    }
-    if (max > 0) productBounds[d] = { min: min / 1.05, max: max * 1.05 };
-  }
-
   // Newton tables per dopant, built on the first ρ → N of that dopant (null: not invertible that
   // way, use Brent). The table spans the bracket, so every domain value is inside it.
   const tables = new Map<Dopant, InversionTable | null>();
@@ -132,16 +114,7 @@ export function conversionFromMobility(
         const fast = invertWithTable(table, f, resistivityOhmCm);
         if (fast.converged) return fast.dopantDensityPerCm3;
       }
-      // Narrow bracket first (N = g(N)/ρ with g = ρ·N = 1/(qμ) bounded); full bracket if that fails.
-      const g = productBounds[dopant];
-      if (g) {
-        const lo = Math.max(DENSITY_BRACKET_LOG10_PER_CM3.min, Math.log10(g.min / resistivityOhmCm));
-        const hi = Math.min(DENSITY_BRACKET_LOG10_PER_CM3.max, Math.log10(g.max / resistivityOhmCm));
-        if (lo < hi) {
-          const narrow = invertResistivityForDensity(f, resistivityOhmCm, { min: lo, max: hi });
-          if (narrow.converged) return narrow.dopantDensityPerCm3;
-        }
-      }
+      // Fallback (a target the table cannot settle): Brent over the whole bracket.
       const r = invertResistivityForDensity(f, resistivityOhmCm);
       return r.converged ? r.dopantDensityPerCm3 : Number.NaN;
     },

@@ -95,19 +95,19 @@ export function convertSites(req: SiteConversionRequest): Outcome<SiteConversion
   let modelId: string | undefined;
   let outsideValidity = 0;
   let refused = 0;
-  const last = rho ?? rs!;
-  for (let i = 0; i < last.length; i++) if (Number.isNaN(last[i]!)) refused++;
   if (rho && req.dopant) {
     const conv = convertResistivityBatch(rho, req.dopant, req.modelId);
     if (!conv.ok) return conv;
     density = conv.value.out;
     modelId = conv.value.modelIds.find((id) => id !== '') ?? undefined;
-    refused = 0;
     for (let i = 0; i < density.length; i++) {
       const s = conv.value.status[i]!;
       if (s === BATCH_REFUSED) refused++;
       else if (s === BATCH_OUTSIDE_VALIDITY) outsideValidity++;
     }
+  } else {
+    const last = rho ?? rs!;
+    for (let i = 0; i < last.length; i++) if (Number.isNaN(last[i]!)) refused++;
   }
   return {
     ok: true,

@@ -2,9 +2,10 @@
  * SVG → PNG with resvg (@resvg/resvg-js: a maintained Rust rasteriser whose binaries ship inside
  * the npm package, no download at install). Only the font packed with the project is loaded
  * (dejavu-fonts-ttf), never the system's, so text always renders and the same picture gives the
- * same bytes on every machine.
+ * same bytes on every machine. Callers load this module only when a reply has a picture.
  */
 import { createRequire } from 'node:module';
+import { Resvg } from '@resvg/resvg-js';
 import type { ReplyOk, ReplyPicture } from '../../reply/reply.js';
 import { FONT_FAMILY } from './svg.js';
 import { trendSvg } from './trend.js';
@@ -17,8 +18,6 @@ function fonts(): string[] {
   return fontFiles;
 }
 
-type ResvgModule = typeof import('@resvg/resvg-js');
-let resvg: ResvgModule | undefined;
 
 /** The picture's SVG (our code). */
 export function pictureSvg(picture: ReplyPicture): string {
@@ -27,8 +26,7 @@ export function pictureSvg(picture: ReplyPicture): string {
 
 /** PNG bytes of an SVG document, at its own size. */
 export function rasterise(svg: string): Uint8Array {
-  resvg ??= require('@resvg/resvg-js') as ResvgModule;
-  const r = new resvg.Resvg(svg, {
+  const r = new Resvg(svg, {
     font: { loadSystemFonts: false, fontFiles: fonts(), defaultFontFamily: FONT_FAMILY, sansSerifFamily: FONT_FAMILY },
     fitTo: { mode: 'original' },
     // Anti-aliased shapes: optimizeSpeed (0) renders about 25 ms faster but jagged on a phone.

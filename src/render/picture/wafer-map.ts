@@ -32,10 +32,9 @@ export function mapColour(value: number, lo: number, hi: number): string {
 }
 
 /** Interpolated grid (row-major, y from the top) of the site values; NaN-free. */
-function interpolate(xs: number[], ys: number[], vs: number[], radius: number): Float64Array {
+function interpolate(delaunay: Delaunay<number>, xs: number[], ys: number[], vs: number[], radius: number): Float64Array {
   const grid = new Float64Array(GRID * GRID).fill(Number.NaN);
   const cell = (2 * radius) / GRID;
-  const delaunay = new Delaunay(Float64Array.from(xs.flatMap((x, i) => [x, ys[i]!])));
   const t = delaunay.triangles;
   // Rasterise each triangle (cell centres inside it get the barycentric blend).
   for (let k = 0; k < t.length; k += 3) {
@@ -125,7 +124,7 @@ export function waferMapSvg(p: WaferMapPicture): string {
     const delaunay = new Delaunay(Float64Array.from(xs.flatMap((x, i) => [x, ys[i]!])));
     const hull = delaunay.hullPolygon();
     if (hull.length >= 3) {
-      const grid = interpolate(xs, ys, vs, radius);
+      const grid = interpolate(delaunay, xs, ys, vs, radius);
       const step = (hi - lo) / BANDS;
       const thresholds = hi > lo ? Array.from({ length: BANDS }, (_, k) => lo + k * step) : [lo];
       const bands = hi > lo ? contours().size([GRID, GRID]).thresholds(thresholds)(Array.from(grid)) : [];

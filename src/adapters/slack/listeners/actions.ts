@@ -7,13 +7,11 @@
  * Results come from the result store, so the buttons work after a restart and on any instance.
  */
 import type { App, BlockAction, ButtonAction } from '@slack/bolt';
-import { renderSlackMessage } from '../../../render/slack-blocks.js';
 import { SLACK_ACTION_IDS, SLACK_CHOICE_ACTION } from '../../../render/slack-blocks.js';
-import { errorReply } from '../../../reply/build.js';
 import type { ReplyOk } from '../../../reply/reply.js';
 import { ask, eventKeys } from '../conversation.js';
 import { isShareable } from '../../../reply/kinds.js';
-import { cardFor } from '../cards.js';
+import { cardFor, noteCard as note } from '../cards.js';
 import type { ListenerDeps } from '../deps.js';
 import { parseMessageLink } from '../message-link.js';
 import { postMessage, toResponseUrl } from '../outbound.js';
@@ -32,10 +30,6 @@ import {
 
 const RESULT_ID = /^r-[0-9a-f]{4,12}$/i;
 
-/** A short private note (an error card) to the person, through the card's response URL. */
-function note(message: string): ReturnType<typeof renderSlackMessage> {
-  return renderSlackMessage(errorReply('slack', message), { helpHint: false });
-}
 
 /** Who pressed a button, where, under the button press's own exactly-once key. */
 function actionWhere(body: BlockAction<ButtonAction>) {

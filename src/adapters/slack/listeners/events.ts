@@ -7,18 +7,12 @@
  */
 import type { App } from '@slack/bolt';
 import { ask, eventKeys } from '../conversation.js';
-import { cardFor } from '../cards.js';
+import { cardFor, noteCard } from '../cards.js';
 import type { ListenerDeps } from '../deps.js';
 import { commandTextFromSlack } from '../incoming-text.js';
 import { fileIn, UPLOAD_FAILED, uploadPicture, type SlackFile } from '../files.js';
 import { postEphemeral, postMessage } from '../outbound.js';
-import { renderSlackMessage } from '../../../render/slack-blocks.js';
-import { errorReply } from '../../../reply/build.js';
 
-/** A one-line note as a small card (a file that could not be read, a picture not uploaded). */
-function note(text: string): ReturnType<typeof renderSlackMessage> {
-  return renderSlackMessage(errorReply('slack_file', text), { helpHint: false });
-}
 
 interface IncomingMessage {
   readonly channel: string;
@@ -38,7 +32,7 @@ export function registerEvents(app: App, deps: ListenerDeps): void {
     const threadTs = m.thread_ts ?? m.ts;
     const helpHint = '@shiftprobe help';
     const file = await fileIn(m.files, context.botToken, deps.fetch, deps.logger);
-    if ('problem' in file) return void (await postEphemeral(client, { channel: m.channel, user: m.user, threadTs }, note(file.problem)));
+    if ('problem' in file) return void (await postEphemeral(client, { channel: m.channel, user: m.user, threadTs }, noteCard(file.problem)));
     const asked = await ask(deps, commandTextFromSlack(m.text, context.botUserId), where, file.attachment);
     if (!asked) return; // a duplicate delivery
     if (asked.reply.ok) {
@@ -46,7 +40,7 @@ export function registerEvents(app: App, deps: ListenerDeps): void {
       if (sent.ok) await deps.conversations.rememberThread({ channelId: m.channel, threadTs, title: asked.reply.title, lastAt: deps.now() });
       else throw Object.assign(new Error(`posting the answer failed: ${sent.code}`), { data: { error: sent.code } });
       if (!(await uploadPicture(client, { channel: m.channel, threadTs }, asked.reply, deps.logger))) {
-        await postEphemeral(client, { channel: m.channel, user: m.user, threadTs }, note(UPLOAD_FAILED));
+        await postEphemeral(client, { channel: m.channel, user: m.user, threadTs }, noteCard(UPLOAD_FAILED));
       }
     } else {
       await postEphemeral(client, { channel: m.channel, user: m.user, threadTs }, cardFor(asked.reply, 'thread', { helpHint }));
@@ -63,12 +57,12 @@ export function registerEvents(app: App, deps: ListenerDeps): void {
     const where = { teamId: body.team_id, userId: m.user, channelId: m.channel, eventKey: eventKeys.message(body.team_id, m.channel, m.ts) };
     const place = { channel: m.channel, ...(m.thread_ts ? { threadTs: m.thread_ts } : {}) };
     const file = await fileIn(m.files, context.botToken, deps.fetch, deps.logger);
-    if ('problem' in file) return void (await postMessage(client, place, note(file.problem)));
+    if ('problem' in file) return void (await postMessage(client, place, noteCard(file.problem)));
     const asked = await ask(deps, commandTextFromSlack(m.text, context.botUserId), where, file.attachment);
     if (!asked) return; // a duplicate delivery
     const sent = await postMessage(client, place, cardFor(asked.reply, 'dm', { helpHint: 'help' }));
     if (!sent.ok) throw Object.assign(new Error(`posting the answer failed: ${sent.code}`), { data: { error: sent.code } });
-    if (asked.reply.ok && !(await uploadPicture(client, place, asked.reply, deps.logger))) await postMessage(client, place, note(UPLOAD_FAILED));
+    if (asked.reply.ok && !(await uploadPicture(client, place, asked.reply, deps.logger))) await postMessage(client, place, noteCard(UPLOAD_FAILED));
     await asked.settle();
   });
 }
