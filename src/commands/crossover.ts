@@ -68,7 +68,7 @@ export const crossoverCommand = defineCommand<CrossoverRequest>({
         { key: 'temperatureC', value: r.temperatureK - 273.15, unit: '°C', label: 'Crossover temperature', sigFigs: 4 },
         { key: 'netDopingPerCm3', value: r.netDopingPerCm3, unit: 'cm⁻³', label: 'Net doping |N_D − N_A|' },
         { key: 'intrinsicDensityPerCm3', value: r.intrinsicDensityPerCm3, unit: 'cm⁻³', label: 'n_i at the crossover' },
-        { key: 'bandgapEv', value: bandgapEv(r.material, r.temperatureK), unit: 'eV', label: 'Band gap there', sigFigs: 4 },
+        { key: 'bandgapEv', value: r.model.bandgapEv?.(r.material, r.temperatureK) ?? bandgapEv(r.material, r.temperatureK), unit: 'eV', label: 'Band gap there', sigFigs: 4 },
       ],
       inputs,
       assumptions: [

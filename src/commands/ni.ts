@@ -1,6 +1,7 @@
 /** `ni`: intrinsic carrier density and band gap at a temperature; n·p = n_i². */
 import { z } from 'zod';
 import { intrinsicDensity } from '../physics/intrinsic/index.js';
+import { PASSLER_CITATION, passlerParameters } from '../physics/bandgap/passler-2002.js';
 import { BANDGAP_CITATION, bandgapParameters } from '../physics/bandgap/varshni-thurmond-1975.js';
 import { errorReply, okReply } from '../reply/build.js';
 import { formatNumber, formatTemperature } from '../reply/format.js';
@@ -57,6 +58,7 @@ export const niCommand = defineCommand<NiRequest>({
     });
     if (!outcome.ok) return errorReply(outcome.refusal.code, refusalMessage(outcome.refusal), { usage: USAGE, example: EXAMPLE });
     const r = outcome.value;
+    const ownGap = r.model.bandgapEv !== undefined;
     const assumptions = [
       'Intrinsic (undoped) material in thermal equilibrium; n = p = n_i.',
       `Mass-action law: in any non-degenerate ${MATERIAL_LABEL[r.material]} at this temperature, n·p = n_i² = ${formatNumber(r.massActionProductPerCm6)} cm⁻⁶.`,
@@ -86,14 +88,15 @@ export const niCommand = defineCommand<NiRequest>({
       },
       problems: r.problems,
       derivation: {
-        equations: [...r.model.equations, 'Eg(T) = Eg0 − α·T²/(T + β)', 'n·p = n_i²'],
-        parameters: [...parameterRows(r.model.parameters(r.material)), ...parameterRows(bandgapParameters(r.material))],
+        // A model with its own gap (the Si default: Pässler's) lists it among its own parameters.
+        equations: [...r.model.equations, ...(ownGap ? [] : ['Eg(T) = Eg0 − α·T²/(T + β)']), 'n·p = n_i²'],
+        parameters: [...parameterRows(r.model.parameters(r.material)), ...(ownGap ? [] : parameterRows(bandgapParameters(r.material)))],
         steps: [
           `T = ${formatNumber(r.temperatureK, { sigFigs: 6 })} K`,
           `Eg = ${formatNumber(r.bandgapEv, { sigFigs: 6 })} eV`,
           `n_i = ${formatNumber(r.intrinsicDensityPerCm3, { sigFigs: 6 })} cm⁻³`,
         ],
-        sources: [r.model.citation, BANDGAP_CITATION],
+        sources: [r.model.citation, ownGap ? PASSLER_CITATION : BANDGAP_CITATION],
       },
     });
   },

@@ -14,7 +14,7 @@ const value = (r: ReplyOk, key: string) => r.values.find((v) => v.key === key)?.
 describe('crossover command', () => {
   it('names the n_i model and round-trips with it (1e-9)', async () => {
     const r = await ok('crossover 1e15 boron');
-    expect(r.model?.id).toBe('misiakos-tsamakis-1993');
+    expect(r.model?.id).toBe('couderc-2014');
     expect(intrinsicDensityPerCm3('Si', value(r, 'temperatureK'), r.model!.id)).toBeWithinRelative(1e15, 1e-9);
     expect(r.warnings.map((w) => w.code)).toContain('outside_validity');
   });

@@ -5,14 +5,17 @@
  *   n = n_i·exp(u), p = n_i·exp(−u), u = (E_F − E_i)/kT
  *   N_D⁺ = N_D/(1 + g_D·exp((E_F − E_D)/kT)),  E_F − E_D = u·kT − (E_c − E_i) + ΔE_D
  *   N_A⁻ = N_A/(1 + g_A·exp((E_A − E_F)/kT)),  E_A − E_F = ΔE_A − (E_i − E_v) − u·kT
- *   E_c − E_i = Eg/2 + (kT/2)·ln(Nc/Nv),  E_i − E_v = Eg/2 − (kT/2)·ln(Nc/Nv)
+ *   E_c − E_i = kT·ln(Nc/n_i),  E_i − E_v = kT·ln(Nv/n_i)
  *
  * Non-degenerate (Boltzmann) statistics for the bands; Fermi–Dirac occupancy of the dopant
  * levels (textbook, e.g. S. M. Sze, K. K. Ng, Physics of Semiconductor Devices, 3rd ed. (2007),
  * §1.5). n_i comes from the intrinsic-density model (so the high-temperature limit is that
- * model's n_i exactly); the band edges are placed about E_i with Eg(T) and Nc/Nv, which fixes
- * the dopant levels. The two routes to n_i differ by ~10 % in Si at 300 K (a few meV in the
- * level positions), stated in `why`.
+ * model's n_i exactly); the band edges are placed about E_i from Nc and Nv, so that
+ * n = Nc·exp(−(E_c − E_F)/kT) and p = Nv·exp(−(E_F − E_v)/kT) hold exactly and the dopant
+ * levels (fixed below E_c / above E_v) see the band densities of states themselves: deep
+ * freeze-out then does not depend on the n_i model. The gap this implies,
+ * kT·ln(Nc·Nv/n_i²), is the one the n_i model carries (within a few meV of Eg(T), stated in
+ * `why`); `bandgapEv` is kept for the reply.
  *
  * The residual is strictly decreasing in u, so the root is unique; it is bracketed explicitly
  * (u_lo where p alone exceeds every acceptor, u_hi where n alone exceeds every donor) and found
@@ -75,9 +78,8 @@ function occupancyComplement(g: number, x: number): number {
 export function solveNeutrality(input: NeutralityInput): NeutralitySolution {
   const kT = BOLTZMANN_EV_PER_K * input.temperatureK;
   const ni = input.intrinsicDensityPerCm3;
-  const half = 0.5 * kT * Math.log(input.conductionBandDensityPerCm3 / input.valenceBandDensityPerCm3);
-  const ecMinusEi = 0.5 * input.bandgapEv + half;
-  const eiMinusEv = 0.5 * input.bandgapEv - half;
+  const ecMinusEi = kT * Math.log(input.conductionBandDensityPerCm3 / ni);
+  const eiMinusEv = kT * Math.log(input.valenceBandDensityPerCm3 / ni);
   const ecT = ecMinusEi / kT;
   const evT = eiMinusEv / kT;
   const donors = input.donors.map((d) => ({ n: d.densityPerCm3, x0: d.ionizationEnergyEv / kT - ecT, g: d.degeneracy }));

@@ -16,6 +16,8 @@ export interface IntrinsicModel {
   /** Short names accepted by `model <id>` besides the id. */
   readonly aliases?: readonly string[];
   parameters(material: Material): Parameter[];
+  /** The band gap the model itself uses, eV (when it has its own; else the Varshni–Thurmond gap). */
+  bandgapEv?(material: Material, temperatureK: number): number;
   /** Kernel: n_i in cm⁻³; a number, never throws. */
   intrinsicDensityPerCm3(material: Material, temperatureK: number): number;
 }

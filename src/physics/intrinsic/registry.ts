@@ -1,9 +1,11 @@
 /**
  * Intrinsic-density models and the public function.
- * Default: Misiakos–Tsamakis for Si (0.5 % from Altermatt 2003's 9.65e9 at 300 K; see its
- * file), the density-of-states form for Ge and GaAs.
+ * Default: Couderc–Amara–Lemiti for Si (one smooth function of T; 0.4 % from Altermatt 2003's
+ * 9.65e9 at 300 K; see its file), the density-of-states form for Ge and GaAs. The older fits
+ * stay selectable by id.
  */
 import { MELTING_POINT_K } from '../materials.js';
+import { PASSLER_VALIDITY_TEMPERATURE_K } from '../bandgap/passler-2002.js';
 import { BANDGAP_VALIDITY_TEMPERATURE_K, bandgapEv } from '../bandgap/varshni-thurmond-1975.js';
 import { conductionBandDensityPerCm3, valenceBandDensityPerCm3 } from '../materials.js';
 import { checkPositive, ok, refuse, type Outcome } from '../outcome.js';
@@ -11,10 +13,11 @@ import type { Problem } from '../problems.js';
 import type { Material, Range } from '../types.js';
 import { densityOfStatesModel } from './density-of-states.js';
 import type { IntrinsicModel } from './intrinsic-model.js';
+import { couderc2014 } from './couderc-2014.js';
 import { misiakosTsamakis1993 } from './misiakos-tsamakis-1993.js';
 import { sproulGreen1991 } from './sproul-green-1991.js';
 
-export const INTRINSIC_MODELS: readonly IntrinsicModel[] = [misiakosTsamakis1993, sproulGreen1991, densityOfStatesModel];
+export const INTRINSIC_MODELS: readonly IntrinsicModel[] = [couderc2014, misiakosTsamakis1993, sproulGreen1991, densityOfStatesModel];
 
 /** Current value at 300 K and the outdated one people still expect. */
 export const SILICON_INTRINSIC_300K = {
@@ -39,18 +42,21 @@ export function findIntrinsicModel(id: string): IntrinsicModel | undefined {
   return INTRINSIC_MODELS.find((m) => m.id === key || (m.aliases ?? []).includes(key));
 }
 
-/** Preference order of the defaults: the measured fits first, the physical form last. */
+/**
+ * The default per material. Silicon has one continuous model on purpose: switching between
+ * fits by temperature made steps of several per cent in n_i (and `ni` and `crossover`
+ * disagreed); outside its validity the reply warns instead.
+ */
 const DEFAULT_PREFERENCE: Readonly<Record<Material, readonly IntrinsicModel[]>> = {
-  Si: [misiakosTsamakis1993, sproulGreen1991, densityOfStatesModel],
+  Si: [couderc2014],
   Ge: [densityOfStatesModel],
   GaAs: [densityOfStatesModel],
 };
 
 /**
- * The default model for a material: without a temperature, the first preference (for Si,
- * Misiakos–Tsamakis); with one, the first preference whose validity covers it (so 85 °C takes
- * Sproul–Green, 275–375 K, rather than extrapolating Misiakos–Tsamakis beyond 340 K), and the
- * first preference again when none covers it (the reply then warns).
+ * The default model for a material: the first preference whose validity covers the
+ * temperature, else the first preference (the reply then warns). Each material has one
+ * preference today, so the default does not depend on the temperature.
  */
 export function defaultIntrinsicModel(material: Material, temperatureK?: number): IntrinsicModel {
   const prefs = DEFAULT_PREFERENCE[material];
@@ -120,9 +126,10 @@ export function intrinsicDensity(req: {
   if (temperatureK < validity.min || temperatureK > validity.max) {
     problems.push({ code: 'outside_validity', quantity: 'temperatureK', input: temperatureK, min: validity.min, max: validity.max, model: model.id });
   }
-  const gapRange = BANDGAP_VALIDITY_TEMPERATURE_K;
+  const ownGap = model.bandgapEv !== undefined;
+  const gapRange = ownGap ? PASSLER_VALIDITY_TEMPERATURE_K : BANDGAP_VALIDITY_TEMPERATURE_K;
   if (temperatureK > gapRange.max) {
-    problems.push({ code: 'outside_validity', quantity: 'temperatureK', input: temperatureK, min: gapRange.min, max: gapRange.max, model: 'varshni-thurmond-1975' });
+    problems.push({ code: 'outside_validity', quantity: 'temperatureK', input: temperatureK, min: gapRange.min, max: gapRange.max, model: ownGap ? 'passler-2002' : 'varshni-thurmond-1975' });
   }
   if (material === 'Si' && Math.abs(temperatureK - 300) <= 1) {
     problems.push({
@@ -135,7 +142,7 @@ export function intrinsicDensity(req: {
   }
   return ok({
     intrinsicDensityPerCm3: ni,
-    bandgapEv: bandgapEv(material, temperatureK),
+    bandgapEv: model.bandgapEv?.(material, temperatureK) ?? bandgapEv(material, temperatureK),
     massActionProductPerCm6: ni * ni,
     conductionBandDensityPerCm3: conductionBandDensityPerCm3(material, temperatureK),
     valenceBandDensityPerCm3: valenceBandDensityPerCm3(material, temperatureK),

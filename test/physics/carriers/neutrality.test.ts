@@ -17,12 +17,19 @@ describe('charge-neutrality kernel', () => {
     expect(Math.abs(r.fermiLevelEv)).toBeLessThan(1e-9);
   });
 
-  // Textbook: E_i sits (kT/2)·ln(Nv/Nc) above midgap, so E_c − E_i = Eg/2 + (kT/2)·ln(Nc/Nv).
-  it('places the band edges about E_i from Eg and Nc/Nv', () => {
-    const r = solveNeutrality({ ...base, donors: [], acceptors: [] });
+  // Textbook (Sze & Ng 2007, §1.4): n = Nc·exp(−(E_c − E_F)/kT) = n_i·exp((E_F − E_i)/kT), so
+  // E_c − E_i = kT·ln(Nc/n_i) and E_i − E_v = kT·ln(Nv/n_i); their sum is kT·ln(Nc·Nv/n_i²), which
+  // for a consistent n_i = √(Nc·Nv)·exp(−Eg/2kT) is Eg. Definitions: 1e-12 relative.
+  it('places the band edges about E_i from Nc, Nv and n_i (n = Nc·exp(−(E_c − E_F)/kT) exactly)', () => {
     const kT = (1.380649e-23 / 1.602176634e-19) * 300;
-    expect(r.conductionEdgeAboveIntrinsicEv).toBeWithinRelative(0.56 + 0.5 * kT * Math.log(2.86 / 3.1), 1e-12);
-    expect(r.conductionEdgeAboveIntrinsicEv + r.valenceEdgeBelowIntrinsicEv).toBeWithinRelative(1.12, 1e-12);
+    const r = solveNeutrality({ ...base, donors: [], acceptors: [] });
+    expect(r.conductionEdgeAboveIntrinsicEv).toBeWithinRelative(kT * Math.log(2.86e19 / 1e10), 1e-12);
+    expect(r.valenceEdgeBelowIntrinsicEv).toBeWithinRelative(kT * Math.log(3.1e19 / 1e10), 1e-12);
+    const consistentNi = Math.sqrt(2.86e19 * 3.1e19) * Math.exp(-1.12 / (2 * kT));
+    const c = solveNeutrality({ ...base, intrinsicDensityPerCm3: consistentNi, donors: [], acceptors: [] });
+    expect(c.conductionEdgeAboveIntrinsicEv + c.valenceEdgeBelowIntrinsicEv).toBeWithinRelative(1.12, 1e-12);
+    const d = solveNeutrality({ ...base, donors: [{ densityPerCm3: 1e16, ionizationEnergyEv: 0.045, degeneracy: 2 }], acceptors: [] });
+    expect(d.electronDensityPerCm3).toBeWithinRelative(2.86e19 * Math.exp(-(d.conductionEdgeAboveIntrinsicEv - d.fermiLevelEv) / kT), 1e-12);
   });
 
   it('reports failure for meaningless input instead of returning NaN silently', () => {

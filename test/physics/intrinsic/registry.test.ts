@@ -8,12 +8,14 @@ describe('intrinsicDensity (public API)', () => {
     const o = intrinsicDensity({ temperatureK: 300, material: 'Si' });
     if (!o.ok) throw new Error(o.refusal.code);
     expect(o.value.intrinsicDensityPerCm3).toBeWithinRelative(9.65e9, 0.01);
-    expect(o.value.model.id).toBe('misiakos-tsamakis-1993');
+    expect(o.value.model.id).toBe('couderc-2014');
   });
-  it('reports the band gap (Thurmond 1975: 1.124 eV at 300 K) and n·p = n_i²', () => {
+  // The default's own gap (Pässler 2002) is reported; Green 1990's table gives 1.1242 eV at 300 K
+  // (0.1 % tolerance: the table's last digit).
+  it('reports the band gap (Green 1990 table: 1.1242 eV at 300 K) and n·p = n_i²', () => {
     const o = intrinsicDensity({ temperatureK: 300, material: 'Si' });
     if (!o.ok) throw new Error(o.refusal.code);
-    expect(o.value.bandgapEv).toBeWithinRelative(1.124, 1e-3);
+    expect(o.value.bandgapEv).toBeWithinRelative(1.1242, 1e-3);
     expect(o.value.massActionProductPerCm6).toBeWithinRelative(o.value.intrinsicDensityPerCm3 ** 2, 1e-12);
     // Green 1990: Nc(300 K) = 2.86e19, Nv(300 K) = 3.10e19 cm⁻³.
     expect(o.value.conductionBandDensityPerCm3).toBeWithinRelative(2.86e19, 1e-12);
@@ -35,11 +37,15 @@ describe('intrinsicDensity (public API)', () => {
     const a = intrinsicDensity({ temperatureK: 358.15, material: 'Si', modelId: 'misiakos' });
     if (!a.ok) throw new Error(a.refusal.code);
     expect(a.value.problems).toContainEqual(expect.objectContaining({ code: 'outside_validity', quantity: 'temperatureK', max: 340 }));
-    // The default picks the fit whose range covers the temperature: 85 °C is inside Sproul–Green's 275–375 K.
+    // The default is one continuous model: 85 °C is inside Couderc's 50–400 K, 500 K is not (warned).
     const d = intrinsicDensity({ temperatureK: 358.15, material: 'Si' });
     if (!d.ok) throw new Error(d.refusal.code);
-    expect(d.value.model.id).toBe('sproul-green-1991');
+    expect(d.value.model.id).toBe('couderc-2014');
     expect(d.value.problems.map((p) => p.code)).not.toContain('outside_validity');
+    const hot = intrinsicDensity({ temperatureK: 500, material: 'Si' });
+    if (!hot.ok) throw new Error(hot.refusal.code);
+    expect(hot.value.model.id).toBe('couderc-2014');
+    expect(hot.value.problems).toContainEqual(expect.objectContaining({ code: 'outside_validity', model: 'couderc-2014', max: 400 }));
     const b = intrinsicDensity({ temperatureK: 250, material: 'Si', modelId: 'sproul-green' });
     if (!b.ok) throw new Error(b.refusal.code);
     expect(b.value.problems).toContainEqual(expect.objectContaining({ code: 'outside_validity', min: 275 }));
