@@ -6,6 +6,8 @@
  *   LOT-A17-w03-rs.csv      49 sites, sheet resistance, commas, 200 mm
  *   LOT-A17-w05-vi.csv      49 sites, V and I, semicolons and decimal commas, 200 mm
  *   LOT-B04-w01-rs-121.csv  121 sites on a 300 mm wafer, a hot spot near the flat
+ *   LOT-A17-w04-rs.csv      49 sites of HX-200P (725 µm, about 9.8 Ω·cm), for `record … map`
+ *   LOT-A17-w06-rs.csv      the same wafer layout with a low edge ring: over the uniformity limit
  */
 import { writeFileSync } from 'node:fs';
 
@@ -57,4 +59,15 @@ for (let gy = -5; gy <= 5; gy++) {
   }
 }
 writeFileSync('examples/maps/LOT-B04-w01-rs-121.csv', text);
-process.stderr.write(`examples/maps: 3 files (${w03.length}, ${w03.length}, ${n} sites)\n`);
+// HX-200P wafers of LOT-A17 measured on the 4PP-2 head: a gentle bowl (passes) and a wafer with a
+// low-resistivity edge ring (non-uniform).
+for (const [name, ring] of [['LOT-A17-w04-rs.csv', 0], ['LOT-A17-w06-rs.csv', 0.09]]) {
+  text = 'site,x (mm),y (mm),rs (ohm/sq),wafer\n';
+  w03.forEach(([x, y], i) => {
+    const r = Math.hypot(x, y) / 93;
+    const rs = 135.5 * (1 + 0.012 * r * r - ring * r ** 6) * (1 + 0.003 * Math.sin(11 * i));
+    text += `${i + 1},${fix(x, 2)},${fix(y, 2)},${fix(rs, 2)},${name.slice(8, 11).toUpperCase()}\n`;
+  });
+  writeFileSync(`examples/maps/${name}`, text);
+}
+process.stderr.write(`examples/maps: 5 files (${w03.length}, ${w03.length}, ${n}, ${w03.length}, ${w03.length} sites)\n`);

@@ -30,6 +30,8 @@ export type Check =
       readonly marginPercent: number;
       /** Which limit the margin is measured to. */
       readonly limit: 'min' | 'max';
+      /** 'map_mean': a map's mean against the product's uniformity mean window. */
+      readonly basis?: 'map_mean';
     }
   | { readonly check: 'validity'; readonly status: 'pass' | 'fail'; readonly model: string }
   | {
@@ -38,6 +40,15 @@ export type Check =
       readonly found: 'n' | 'p' | 'indeterminate';
       readonly method: string;
       readonly status: 'pass' | 'fail' | 'indeterminate';
+    }
+  | {
+      /** A map's 1σ/mean non-uniformity against the product's uniformity limit. */
+      readonly check: 'uniformity';
+      readonly wafer: number;
+      readonly nonUniformityPercent: number;
+      readonly limitPercent: number;
+      readonly count: number;
+      readonly status: 'pass' | 'fail';
     }
   | {
       readonly check: 'site_spread';
@@ -78,6 +89,25 @@ export type LotNote =
   | { readonly code: 'type_not_checked'; readonly reason: 'indeterminate' }
   | { readonly code: 'window_not_checked'; readonly reason: 'conversion_refused' };
 
+/** The statistics of a recorded map (over the sites inside the edge exclusion). */
+export interface MapSummary {
+  readonly fileName: string;
+  readonly measured: 'sheet' | 'resistivity';
+  /** Sites in the file, and those counted (a value, inside the edge exclusion). */
+  readonly siteCount: number;
+  readonly count: number;
+  readonly diameterMm: number;
+  readonly edgeExclusionMm: number;
+  /** Resistivity statistics at the measured temperature, Ω·cm. */
+  readonly meanOhmCm: number;
+  readonly standardDeviationOhmCm: number;
+  readonly minimumOhmCm: number;
+  readonly maximumOhmCm: number;
+  /** 1σ/mean × 100 and (max − min)/(2·mean) × 100, %. */
+  readonly nonUniformityPercent: number;
+  readonly rangeNonUniformityPercent: number;
+}
+
 /** Stored with each reading: what it was checked against and what was found. */
 export interface ReadingEvaluation {
   readonly productId?: string;
@@ -90,6 +120,8 @@ export interface ReadingEvaluation {
   readonly notes: readonly LotNote[];
   readonly findings: readonly FlagFinding[];
   readonly verdict: Verdict;
+  /** Set for a map reading (its sites are stored beside it, in their own table). */
+  readonly map?: MapSummary;
 }
 
 export interface ReadingDraft {

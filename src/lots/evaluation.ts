@@ -10,6 +10,9 @@
  * 3. conductivity type as the product expects;
  * 4. site-to-site spread on the reading's wafer and wafer-to-wafer spread in the lot;
  * 5. the lot has a product with a spec.
+ * A wafer map (a measurement file) is one reading of its wafer: its mean resistivity takes the
+ * checks above (against the product's uniformity mean window when it has one), and its sites
+ * the non-uniformity and site-to-site limits (checks/uniformity.ts).
  */
 import type { LotError } from './errors.js';
 import {
@@ -23,7 +26,10 @@ import {
 } from './evaluation-types.js';
 import { placeScope, type FlagFinding } from './flags.js';
 import type { LotPhysics, ModelRef } from './physics.js';
-import type { PrimaryMeasurement, RecordRequest, TypeMeasurement } from './readings.js';
+import type { MapMeasurement, MapSite, PrimaryMeasurement, RecordRequest, TypeMeasurement } from './readings.js';
+import { uniformityStatistics } from '../physics/statistics/uniformity.js';
+import { uniformityChecks } from './checks/uniformity.js';
+import type { MapSummary } from './evaluation-types.js';
 import { suggestProduct } from './suggest.js';
 import type { Product, SpecCatalog, SpecWindow } from './spec/schema.js';
 import type { PlaceValue } from './spread.js';
@@ -49,6 +55,8 @@ export interface EvaluatedRecord {
   readonly drafts: readonly ReadingDraft[];
   /** Findings not tied to one reading (no spec); attached to the first draft when there is one. */
   readonly lotFindings: readonly FlagFinding[];
+  /** The sites of a map reading, stored beside the draft at `readingIndex`. */
+  readonly mapSites?: { readonly readingIndex: number; readonly sites: readonly MapSite[] };
 }
 
 export function evaluateRecord(input: EvaluationInput): { ok: true; value: EvaluatedRecord } | { ok: false; error: LotError } {
@@ -76,7 +84,14 @@ export function evaluateRecord(input: EvaluationInput): { ok: true; value: Evalu
   const drafts: ReadingDraft[] = [];
   let primaryRho: number | undefined;
 
-  if (request.primary) {
+  let mapSites: EvaluatedRecord['mapSites'];
+  if (request.primary?.kind === 'map') {
+    const map = mapDraft(request.primary, request, product, physics, input.currentPoints, specRef);
+    if (!map.ok) return map;
+    primaryRho = map.value.resistivityOhmCm;
+    mapSites = { readingIndex: drafts.length, sites: request.primary.sites };
+    drafts.push(map.value);
+  } else if (request.primary) {
     const primary = primaryDraft(request.primary, request, product, physics, input.currentPoints, specRef, input.probeSpacingCm);
     if (!primary.ok) return primary;
     primaryRho = primary.value.resistivityOhmCm;
@@ -102,7 +117,7 @@ export function evaluateRecord(input: EvaluationInput): { ok: true; value: Evalu
         }
       : d,
   );
-  return { ok: true, value: { ...(product ? { product } : {}), drafts: withSpecVerdict, lotFindings } };
+  return { ok: true, value: { ...(product ? { product } : {}), drafts: withSpecVerdict, lotFindings, ...(mapSites ? { mapSites } : {}) } };
 }
 
 /**
@@ -135,8 +150,103 @@ function verdictOf(findings: readonly FlagFinding[], checks: readonly Check[]): 
   return checks.some((c) => c.status === 'pass') ? 'pass' : 'no_verdict';
 }
 
+/** The statistics of a map's site resistivities over the sites inside the edge exclusion. */
+export function mapSummary(m: MapMeasurement): MapSummary | undefined {
+  const rho = Float64Array.from(m.sites, (s) => s.resistivityOhmCm ?? Number.NaN);
+  const include = Uint8Array.from(m.sites, (s) => (s.included ? 1 : 0));
+  const st = uniformityStatistics(rho, include);
+  if (st.count === 0) return undefined;
+  return {
+    fileName: m.fileName,
+    measured: m.measured,
+    siteCount: m.sites.length,
+    count: st.count,
+    diameterMm: m.diameterMm,
+    edgeExclusionMm: m.edgeExclusionMm,
+    meanOhmCm: st.mean,
+    standardDeviationOhmCm: st.standardDeviation,
+    minimumOhmCm: st.minimum,
+    maximumOhmCm: st.maximum,
+    nonUniformityPercent: st.nonUniformityPercent,
+    rangeNonUniformityPercent: st.rangeNonUniformityPercent,
+  };
+}
+
+/**
+ * A map reading: the mean of the sites inside the edge exclusion is the wafer's resistivity
+ * (corrected to 23 °C like any reading); the value stored is the mean of what was measured.
+ */
+function mapDraft(
+  m: MapMeasurement,
+  request: RecordRequest,
+  product: Product | undefined,
+  physics: LotPhysics,
+  currentPoints: readonly PlaceValue[],
+  specRef: Partial<ReadingEvaluation>,
+): DraftResult {
+  const summary = mapSummary(m);
+  const wafer = request.wafer;
+  if (!summary || wafer === undefined) {
+    return { ok: false, error: { code: 'invalid_request', issues: [{ path: 'primary.sites', message: 'the map has no site with a resistivity inside the edge exclusion' }] } };
+  }
+  const notes: LotNote[] = [];
+  const checks: Check[] = [];
+  const findings: FlagFinding[] = [];
+  const rho = atSpecTemperature(summary.meanOhmCm, request.temperatureK, product, physics, notes);
+  let measuredSum = 0;
+  let measuredCount = 0;
+  for (const s of m.sites) {
+    if (s.included && s.value !== null && s.resistivityOhmCm !== null) {
+      measuredSum += s.value;
+      measuredCount++;
+    }
+  }
+  let density: number | undefined;
+  let model: ModelRef | undefined;
+  if (product) {
+    const where = { scope: placeScope(wafer, undefined), wafer };
+    const conv = conversionCheck(rho, product, physics, where);
+    density = conv.density;
+    model = conv.model;
+    const win = productWindowCheck(product, rho, density, where, 'map_mean');
+    const uni = uniformityChecks(product, wafer, summary);
+    const spread = spreadChecks(product, request, rho, currentPoints);
+    checks.push(...conv.checks, ...win.checks, ...uni.checks, ...spread.checks);
+    findings.push(...conv.findings, ...win.findings, ...uni.findings, ...spread.findings);
+    notes.push(...conv.notes, ...win.notes);
+  }
+  const verdict = verdictOf(findings, checks);
+  return {
+    ok: true,
+    value: {
+      wafer,
+      quantity: m.measured,
+      asEntered: m.asEntered,
+      value: measuredSum / measuredCount,
+      unit: m.measured === 'sheet' ? 'Ω/□' : 'Ω·cm',
+      ...(m.thicknessCm !== undefined ? { thicknessCm: m.thicknessCm } : {}),
+      ...(m.spacingCm !== undefined ? { spacingCm: m.spacingCm } : {}),
+      resistivityOhmCm: rho,
+      ...(density !== undefined ? { dopantDensityPerCm3: density } : {}),
+      ...(request.temperatureK !== undefined ? { temperatureK: request.temperatureK } : {}),
+      ...(request.note !== undefined ? { note: request.note } : {}),
+      verdict,
+      evaluation: {
+        ...specRef,
+        ...(product ? { dopant: product.dopant } : {}),
+        ...(model ? { model } : {}),
+        checks,
+        notes,
+        findings,
+        verdict,
+        map: summary,
+      },
+    },
+  };
+}
+
 function primaryDraft(
-  m: PrimaryMeasurement,
+  m: Exclude<PrimaryMeasurement, MapMeasurement>,
   request: RecordRequest,
   product: Product | undefined,
   physics: LotPhysics,

@@ -10,6 +10,7 @@ export const FLAG_CODES = [
   'out_of_window',
   'type_mismatch',
   'spread_over_limit',
+  'uniformity_over_limit',
   'outside_model_validity',
   'no_spec',
 ] as const;
@@ -20,6 +21,7 @@ export const FLAG_WORDS: Readonly<Record<FlagCode, string>> = {
   out_of_window: 'window',
   type_mismatch: 'type',
   spread_over_limit: 'spread',
+  uniformity_over_limit: 'uniformity',
   outside_model_validity: 'model',
   no_spec: 'spec',
 };
@@ -40,6 +42,16 @@ export type FlagDetail =
       readonly side: 'above' | 'below';
       /** How far outside, in % of the limit crossed. */
       readonly marginPercent: number;
+      /** 'map_mean': a map's mean against the product's uniformity mean window. */
+      readonly basis?: 'map_mean';
+    }
+  | {
+      readonly code: 'uniformity_over_limit';
+      readonly wafer: number;
+      /** 1σ/mean × 100 of the map's site resistivities. */
+      readonly nonUniformityPercent: number;
+      readonly limitPercent: number;
+      readonly count: number;
     }
   | {
       readonly code: 'type_mismatch';
@@ -129,4 +141,5 @@ export function placeScope(wafer: number | undefined, site: number | undefined):
   return site === undefined ? `w${wafer}` : `w${wafer}/s${site}`;
 }
 export const siteSpreadScope = (wafer: number): string => `w${wafer}:sites`;
+export const mapUniformityScope = (wafer: number): string => `w${wafer}:map`;
 export const WAFER_SPREAD_SCOPE = 'lot:wafers';

@@ -22,6 +22,8 @@ export interface WaferView {
   readonly worstMargin?: WindowMargin;
   /** Carrier type(s) found on this wafer by its current type readings. */
   readonly types: readonly ('n' | 'p' | 'indeterminate')[];
+  /** The wafer's latest current map reading: its sites and non-uniformity (1σ/mean). */
+  readonly map?: { readonly readingId: number; readonly count: number; readonly nonUniformityPercent: number; readonly limitPercent?: number };
 }
 
 export interface Contributor {
@@ -66,6 +68,8 @@ export function lotView(history: LotHistory, catalog: SpecCatalog): LotView {
       }
     }
     const types = current.filter((r) => r.quantity === 'type' && r.wafer === w.wafer && r.carrierType !== undefined).map((r) => r.carrierType!);
+    const mapReading = current.filter((r) => r.wafer === w.wafer && r.evaluation.map !== undefined).sort((a, b) => b.id - a.id)[0];
+    const limit = product?.uniformity?.nonUniformityPercentMax;
     return {
       wafer: w.wafer,
       meanOhmCm: w.meanOhmCm,
@@ -74,6 +78,9 @@ export function lotView(history: LotHistory, catalog: SpecCatalog): LotView {
       ...(product?.spread?.siteToSitePercent !== undefined ? { siteLimitPercent: product.spread.siteToSitePercent } : {}),
       ...(worst ? { worstMargin: worst } : {}),
       types: [...new Set(types)],
+      ...(mapReading?.evaluation.map
+        ? { map: { readingId: mapReading.id, count: mapReading.evaluation.map.count, nonUniformityPercent: mapReading.evaluation.map.nonUniformityPercent, ...(limit !== undefined ? { limitPercent: limit } : {}) } }
+        : {}),
     };
   });
   // Wafers with only type readings still get a row.

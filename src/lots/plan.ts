@@ -100,6 +100,7 @@ export function planRecord(input: PlanInput, state: LotState): PlanResult<Record
       raise,
       alreadyOpen,
       close,
+      ...(evaluated.value.mapSites ? { mapSites: evaluated.value.mapSites } : {}),
     },
   };
 }

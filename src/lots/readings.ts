@@ -43,6 +43,42 @@ export const SheetMeasurement = z.object({
   asEntered: z.string().max(120),
 });
 
+/** Most sites one map may hold (the measurement-file limit). */
+export const MAP_MAX_SITES = 10_000;
+
+/** One site of a recorded map: where, what was measured, its resistivity, and whether it counts. */
+export const MapSite = z.object({
+  /** The site's name as written in the file ('' when the file has none). */
+  label: z.string().max(40),
+  xMm: z.number().finite(),
+  yMm: z.number().finite(),
+  /** As measured, canonical unit (Ω/□ or Ω·cm); null for an empty cell. */
+  value: z.number().finite().positive().nullable(),
+  /** Resistivity at the measured temperature, Ω·cm; null when there is none. */
+  resistivityOhmCm: z.number().finite().positive().nullable(),
+  /** Inside the edge exclusion (counted in the statistics). */
+  included: z.boolean(),
+});
+export type MapSite = z.infer<typeof MapSite>;
+
+/**
+ * A wafer map from a measurement file (`record <lot> w<n> map …`): every site, already converted
+ * to resistivity through the core (the command layer does it, with the same code as `map`).
+ */
+export const MapMeasurement = z.object({
+  kind: z.literal('map'),
+  /** What the file measured: sheet resistance (V/I pairs arrive as it) or resistivity. */
+  measured: z.enum(['sheet', 'resistivity']),
+  fileName: z.string().min(1).max(200),
+  thicknessCm: within('thicknessCm').optional(),
+  spacingCm: within('spacingCm').optional(),
+  diameterMm: z.number().finite().positive().max(450),
+  edgeExclusionMm: z.number().finite().min(0).max(225),
+  sites: z.array(MapSite).min(1).max(MAP_MAX_SITES),
+  asEntered: z.string().max(200),
+});
+export type MapMeasurement = z.infer<typeof MapMeasurement>;
+
 export const TYPE_METHODS = ['hot', 'cold', 'hall', 'point', 'spv'] as const;
 
 export const ProbeTypeMeasurement = z.object({
@@ -60,12 +96,13 @@ export const StatedTypeMeasurement = z.object({
   asEntered: z.string().max(80),
 });
 
-export const PrimaryMeasurement = z.discriminatedUnion('kind', [ResistivityMeasurement, SheetMeasurement]);
+export const PrimaryMeasurement = z.discriminatedUnion('kind', [ResistivityMeasurement, SheetMeasurement, MapMeasurement]);
 export type PrimaryMeasurement = z.infer<typeof PrimaryMeasurement>;
 export const TypeMeasurement = z.discriminatedUnion('kind', [ProbeTypeMeasurement, StatedTypeMeasurement]);
 export type TypeMeasurement = z.infer<typeof TypeMeasurement>;
 
-export const RecordRequest = z
+/** The fields of a `record`, before the rules that tie them together (RecordRequest). */
+export const RecordRequestFields = z
   .object({
     lotId: z.string().min(1).max(64),
     wafer: z.number().int().min(WAFER_MIN).max(WAFER_MAX).optional(),
@@ -82,13 +119,18 @@ export const RecordRequest = z
     corrects: z.number().int().positive().optional(),
     note: z.string().max(500).optional(),
   })
-  .strict()
-  .refine((r) => r.site === undefined || r.wafer !== undefined, {
+  .strict();
+
+export const RecordRequest = RecordRequestFields.refine((r) => r.site === undefined || r.wafer !== undefined, {
     message: 'a site needs its wafer (e.g. w3 site 2)',
     path: ['site'],
   })
   .refine((r) => r.primary !== undefined || r.typeReading !== undefined || r.productId !== undefined, {
     message: 'nothing to record: give a reading (rho, sheet or type) or a product',
+  })
+  .refine((r) => r.primary?.kind !== 'map' || (r.wafer !== undefined && r.site === undefined), {
+    message: 'a map is of one wafer: give the wafer (e.g. w3) and no site',
+    path: ['wafer'],
   })
   .refine((r) => r.corrects === undefined || r.primary !== undefined || r.typeReading !== undefined, {
     message: 'a correction needs the corrected reading',

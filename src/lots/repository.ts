@@ -11,7 +11,7 @@
 import type { FlagFinding, StoredFlag } from './flags.js';
 import type { LotError } from './errors.js';
 import type { ReadingDraft } from './evaluation-types.js';
-import type { Actor, StoredReading } from './readings.js';
+import type { Actor, MapSite, StoredReading } from './readings.js';
 
 export interface LotRecord {
   readonly lotId: string;
@@ -55,6 +55,8 @@ export interface RecordPlan {
    * names a product that has a spec (for a no-spec flag).
    */
   readonly close: readonly { readonly flagId: number; readonly because: 'reading_corrected' | 'product_set' }[];
+  /** The sites of a map reading (the reading at `readingIndex`), stored append-only beside it. */
+  readonly mapSites?: { readonly readingIndex: number; readonly sites: readonly MapSite[] };
 }
 
 export type PlanResult<P> = { readonly ok: true; readonly plan: P } | { readonly ok: false; readonly error: LotError };
@@ -171,6 +173,8 @@ export interface LotRepository {
   /** Lots whose current product is `productId`, by lot id (for a product's trend chart). */
   lotIdsOfProduct(productId: string, limit: number): Promise<string[]>;
   listFlags(query: FlagQuery): Promise<FlagWithProduct[]>;
+  /** The sites of a map reading, in file order (empty for any other reading). */
+  mapSites(readingId: number): Promise<MapSite[]>;
   countReadings(): Promise<number>;
   countLots(): Promise<number>;
 

@@ -10,11 +10,9 @@ describe('every help example answers', () => {
   for (const spec of COMMANDS) {
     for (const example of spec.help.examples) {
       it(`${spec.verb}: "${example}"`, async () => {
-        // `map` reads the measurement file sent with the message: the demo 200 mm file.
-        const ctx =
-          spec.verb === 'map'
-            ? testContext({ attachment: { name: 'LOT-A17-w03-rs.csv', text: readFileSync('examples/maps/LOT-A17-w03-rs.csv', 'utf8') } })
-            : testContext();
+        // `map` and `record … map` read the measurement file sent with the message: demo 200 mm files.
+        const file = spec.verb === 'map' ? 'LOT-A17-w03-rs.csv' : / map\b/.test(example) ? 'LOT-A17-w04-rs.csv' : undefined;
+        const ctx = file ? testContext({ attachment: { name: file, text: readFileSync(`examples/maps/${file}`, 'utf8') } }) : testContext();
         if (spec.verb === 'why') await handle('rho 8.2 ohm-cm p', ctx);
         const r = await handle(example, ctx);
         if (!r.ok) throw new Error(`${example}: ${r.error.code} ${r.error.message}`);

@@ -92,8 +92,11 @@ export function lotReply(id: ReplyIdentity, v: LotView, o: { timeZone: string; n
         rows: v.wafers.map((w) => [
           `w${w.wafer}`,
           Number.isFinite(w.meanOhmCm) ? `${formatNumber(w.meanOhmCm)} Ω·cm` : '—',
-          String(w.placeCount),
-          w.siteSpread ? `${formatNumber(w.siteSpread.spreadPercent, { sigFigs: 2 })} %${w.siteLimitPercent !== undefined && w.siteSpread.spreadPercent > w.siteLimitPercent ? ' (over)' : ''}` : '—',
+          // A wafer with a map: its sites, and its non-uniformity (1σ/mean) as the spread.
+          w.map ? `${w.map.count} (map #${w.map.readingId})` : String(w.placeCount),
+          w.map
+            ? `1σ/mean ${formatNumber(w.map.nonUniformityPercent, { sigFigs: 2 })} %${w.map.limitPercent !== undefined && w.map.nonUniformityPercent > w.map.limitPercent ? ' (over)' : ''}`
+            : w.siteSpread ? `${formatNumber(w.siteSpread.spreadPercent, { sigFigs: 2 })} %${w.siteLimitPercent !== undefined && w.siteSpread.spreadPercent > w.siteLimitPercent ? ' (over)' : ''}` : '—',
           w.worstMargin
             ? w.worstMargin.status === 'pass'
               ? `${formatNumber(w.worstMargin.marginPercent, { sigFigs: 2 })} % inside ${w.worstMargin.limit}`

@@ -7,7 +7,7 @@ import type { HandleContext } from '../context.js';
 
 /** Words the lot commands use as keys: never a lot id. */
 const KEYWORDS = new Set([
-  'rho', 'resistivity', 'res', 'sheet', 'rs', 'type', 'thick', 'thickness', 'spacing', 'at', 'temp', 'product', 'corrects',
+  'rho', 'resistivity', 'res', 'sheet', 'rs', 'type', 'thick', 'thickness', 'spacing', 'at', 'temp', 'product', 'corrects', 'map', 'edge', 'diam',
   'correcting', 'replaces', 'site', 'wafer', 'because', 'all', 'today', '24h', '7d', 'open',
 ]);
 

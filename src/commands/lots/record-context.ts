@@ -7,8 +7,10 @@
  *    ("same as #41, 2 minutes ago; stored as a second reading"), and so are the wafer's other
  *    open flags and type readings that contradict each other or the product.
  */
+import { mapSummary } from '../../lots/evaluation.js';
 import type { LotService } from '../../lots/service.js';
 import type { RecordRequest, StoredReading } from '../../lots/readings.js';
+import type { Product } from '../../lots/spec/schema.js';
 import { formatNumber } from '../../reply/format.js';
 import { flagHandle } from '../../lots/flags.js';
 import { FLAG_TITLES } from './wording.js';
@@ -31,19 +33,25 @@ function resistivityOf(request: RecordRequest): number | undefined {
   const p = request.primary;
   if (!p) return undefined;
   if (p.kind === 'resistivity') return p.resistivityOhmCm;
+  if (p.kind === 'map') return mapSummary(p)?.meanOhmCm;
   return p.sheetResistanceOhmPerSq * p.thicknessCm;
+}
+
+/** The product a record will be checked against: the one it names, else the lot's (undefined if none has a spec). */
+export async function productOfRecord(lots: LotService, request: Pick<RecordRequest, 'lotId' | 'productId'>): Promise<Product | undefined> {
+  let productId = request.productId;
+  if (productId === undefined) {
+    const lot = await lots.lot(request.lotId);
+    productId = lot.ok ? lot.value.lot.productId : undefined;
+  }
+  return productId !== undefined ? lots.catalog.find(productId) : undefined;
 }
 
 /** Whether the reading is so far from its product's resistivity window that it needs confirming. */
 export async function implausibleReading(lots: LotService, request: RecordRequest, factor: number): Promise<Implausible | undefined> {
   const rho = resistivityOf(request);
   if (rho === undefined || !(factor > 1)) return undefined;
-  let productId = request.productId;
-  if (productId === undefined) {
-    const lot = await lots.lot(request.lotId);
-    productId = lot.ok ? lot.value.lot.productId : undefined;
-  }
-  const product = productId !== undefined ? lots.catalog.find(productId) : undefined;
+  const product = await productOfRecord(lots, request);
   const window = product?.resistivityOhmCm;
   if (!product || !window) return undefined;
   if (rho > window.max * factor || rho < window.min / factor) {

@@ -62,7 +62,7 @@ export function recordReply(identity: ReplyIdentity, result: RecordResult, extra
   if (first?.wafer !== undefined) inputs['wafer'] = { value: `w${first.wafer}`, label: 'Wafer' };
   if (first?.site !== undefined) inputs['site'] = { value: String(first.site), label: 'Site' };
   for (const r of readings) {
-    inputs[r.quantity] = { value: r.asEntered, label: r.quantity === 'type' ? 'Type reading' : r.quantity === 'sheet' ? 'Sheet reading' : 'Resistivity' };
+    inputs[r.quantity] = { value: r.asEntered, label: r.quantity === 'type' ? 'Type reading' : r.evaluation.map ? 'Reading' : r.quantity === 'sheet' ? 'Sheet reading' : 'Resistivity' };
   }
   if (first?.temperatureK !== undefined) {
     inputs['temperature'] = { value: formatNumber(first.temperatureK - 273.15, { sigFigs: 3 }), unit: '°C', label: 'Temperature', ...(extras.asTyped['temperature'] ? { asTyped: extras.asTyped['temperature'] } : {}) };
@@ -128,6 +128,7 @@ export function recordReply(identity: ReplyIdentity, result: RecordResult, extra
         'inside the window: margin = (ρ − min)/min or (max − ρ)/max, whichever is smaller, × 100 %',
         'outside the window: margin = (ρ − max)/max or (min − ρ)/min × 100 %',
         'spread = (max − min)/mean × 100 % (or /min when the spec says range-over-min), latest value per site',
+        ...(readings.some((r) => r.evaluation.map) ? ['map: non-uniformity = 1σ/mean × 100 % over the sites inside the edge exclusion; the map mean is the wafer’s reading'] : []),
       ],
       parameters: spec
         ? [
@@ -135,6 +136,8 @@ export function recordReply(identity: ReplyIdentity, result: RecordResult, extra
             ...(spec.dopantDensityPerCm3 ? [{ name: 'window min', value: spec.dopantDensityPerCm3.min, unit: 'cm⁻³' }, { name: 'window max', value: spec.dopantDensityPerCm3.max, unit: 'cm⁻³' }] : []),
             ...(spec.spread?.siteToSitePercent !== undefined ? [{ name: 'site-to-site limit', value: spec.spread.siteToSitePercent, unit: '%' }] : []),
             ...(spec.spread?.waferToWaferPercent !== undefined ? [{ name: 'wafer-to-wafer limit', value: spec.spread.waferToWaferPercent, unit: '%' }] : []),
+            ...(spec.uniformity?.nonUniformityPercentMax !== undefined ? [{ name: 'non-uniformity limit (1σ/mean)', value: spec.uniformity.nonUniformityPercentMax, unit: '%' }] : []),
+            ...(spec.uniformity?.meanOhmCm ? [{ name: 'map mean min', value: spec.uniformity.meanOhmCm.min, unit: 'Ω·cm' }, { name: 'map mean max', value: spec.uniformity.meanOhmCm.max, unit: 'Ω·cm' }] : []),
           ].map((p) => ({ ...p, source: basename(catalog.source) }))
         : [],
       steps,
@@ -145,9 +148,20 @@ export function recordReply(identity: ReplyIdentity, result: RecordResult, extra
 
 function readingValues(r: StoredReading): ReplyValue[] {
   const out: ReplyValue[] = [];
-  if (r.quantity === 'sheet') out.push({ key: 'sheetResistanceOhmPerSq', value: r.value, unit: 'Ω/□', label: 'Sheet resistance' });
+  const map = r.evaluation.map;
+  const mean = map ? 'Map mean ' : '';
+  if (r.quantity === 'sheet') out.push({ key: 'sheetResistanceOhmPerSq', value: r.value, unit: 'Ω/□', label: map ? 'Map mean sheet resistance' : 'Sheet resistance' });
   if (r.resistivityOhmCm !== undefined) {
-    out.push({ key: 'resistivityOhmCm', value: r.resistivityOhmCm, unit: 'Ω·cm', label: r.temperatureK !== undefined ? 'Resistivity at 23 °C' : 'Resistivity', headline: true });
+    out.push({ key: 'resistivityOhmCm', value: r.resistivityOhmCm, unit: 'Ω·cm', label: `${mean}${mean ? 'resistivity' : 'Resistivity'}${r.temperatureK !== undefined ? ' at 23 °C' : ''}`, headline: true });
+  }
+  if (map) {
+    out.push(
+      { key: 'nonUniformityPercent', value: map.nonUniformityPercent, unit: '%', label: 'Non-uniformity (1σ/mean)', headline: true },
+      { key: 'rangeNonUniformityPercent', value: map.rangeNonUniformityPercent, unit: '%', label: 'Range non-uniformity ((max − min)/(2·mean))' },
+      { key: 'minimum', value: map.minimumOhmCm, unit: 'Ω·cm', label: 'Lowest site resistivity (as measured)' },
+      { key: 'maximum', value: map.maximumOhmCm, unit: 'Ω·cm', label: 'Highest site resistivity (as measured)' },
+      countValue('siteCount', map.count, `Sites in the statistics (of ${map.siteCount} stored)`),
+    );
   }
   if (r.dopantDensityPerCm3 !== undefined) {
     out.push({ key: 'dopantDensityPerCm3', value: r.dopantDensityPerCm3, unit: 'cm⁻³', label: `${capital(r.evaluation.dopant ?? 'dopant')} density` });
@@ -164,6 +178,7 @@ function readingValues(r: StoredReading): ReplyValue[] {
     });
   }
   for (const c of r.evaluation.checks) {
+    if (c.check === 'uniformity') out.push({ key: 'nonUniformityLimitPercent', value: c.limitPercent, unit: '%', label: 'Non-uniformity limit', sigFigs: 2 });
     if (c.check === 'site_spread') out.push({ key: 'siteSpreadPercent', value: c.spreadPercent, unit: '%', label: `Site-to-site spread w${c.wafer}`, sigFigs: 2 });
     if (c.check === 'wafer_spread') out.push({ key: 'waferSpreadPercent', value: c.spreadPercent, unit: '%', label: 'Wafer-to-wafer spread', sigFigs: 2 });
   }

@@ -5,8 +5,12 @@
  *          [at <temperature>] [product <id>] [corrects <reading number>]
  */
 import { z } from 'zod';
-import { LIMITS, RecordRequest, type PrimaryMeasurement, type TypeMeasurement } from '../../lots/readings.js';
+import { LIMITS, RecordRequestFields, type MapSite, type PrimaryMeasurement, type RecordRequest, type TypeMeasurement } from '../../lots/readings.js';
+import type { Product } from '../../lots/spec/schema.js';
+import { analyseMap } from '../map-analysis.js';
+import { readAttachedFile } from '../map.js';
 import { errorReply } from '../../reply/build.js';
+import type { ReplyOk } from '../../reply/reply.js';
 import { formatNumber } from '../../reply/format.js';
 import { ArgError, type Args } from '../args.js';
 import { identity } from '../common.js';
@@ -14,12 +18,25 @@ import { defineCommand } from '../spec.js';
 import { POLARITY_WORDS, PROBE_METHOD_WORDS, type ProbeMethodWord } from '../words.js';
 import type { Dimension, Quantity } from '../units.js';
 import { actorOf, lotsOf, NOT_SET_UP, takeLotId, takeSite, takeWafer } from './parse.js';
-import { afterRecordNotes, implausibleQuestion, implausibleReading } from './record-context.js';
+import { afterRecordNotes, implausibleQuestion, implausibleReading, productOfRecord } from './record-context.js';
 import { recordReply } from './record-reply.js';
 import { lotErrorReply } from './wording.js';
 
+/** `record <lot> w<n> map …`: the file is read when the command runs (it is attached, not typed). */
+export const PendingMap = z.object({
+  thicknessCm: z.number().finite().optional(),
+  spacingCm: z.number().finite().optional(),
+  diameterMm: z.number().finite().optional(),
+  edgeExclusionMm: z.number().finite().optional(),
+  valueUnit: z.string().optional(),
+  asTyped: z.record(z.string(), z.string()),
+});
+export type PendingMap = z.infer<typeof PendingMap>;
+
 export const RecordCommandRequest = z.object({
-  record: RecordRequest,
+  /** Checked in full by the lot service (RecordRequest); a map's sites are added when it runs. */
+  record: RecordRequestFields,
+  map: PendingMap.optional(),
   /** The person confirmed a reading far outside its window ("confirm"). */
   confirmed: z.boolean(),
   /** The command as typed, to offer it again with "confirm". */
@@ -30,7 +47,10 @@ export const RecordCommandRequest = z.object({
 export type RecordCommandRequest = z.infer<typeof RecordCommandRequest>;
 
 const USAGE =
-  'record <lot> [w<n>] [site <n>] rho <ρ> | sheet <Rs> thick <t> | type <hot|cold|hall|point|spv> <reading> | type n|p  [at <T>] [product <id>] [corrects <#>]';
+  'record <lot> [w<n>] [site <n>] rho <ρ> | sheet <Rs> thick <t> | type <hot|cold|hall|point|spv> <reading> | type n|p  [at <T>] [product <id>] [corrects <#>]   ·   record <lot> w<n> map [thick <t>] [edge <mm>] [diam <d>] with the measurement file attached';
+const MAP_EXAMPLE = 'record LOT-A17 w4 map thick 725um';
+const NO_MAP_FILE =
+  'A map reading needs its measurement file: attach the CSV to the message (Slack: to the message that mentions me, or in a DM), or on the command line give --file wafer.csv. The layout is in docs/measurement-files.md.';
 const EXAMPLE = 'record LOT-A17 w3 rho 8.4 ohm-cm';
 
 const TYPE_METHOD_WORDS: Readonly<Record<string, ProbeMethodWord>> = PROBE_METHOD_WORDS;
@@ -85,6 +105,7 @@ export const recordCommand = defineCommand<RecordCommandRequest>({
       'record LOT-B204 w5 type hot -1.2mV',
       'record LOT-A17 w3 rho 8.4 ohm-cm type p at 24C',
       'record LOT-C31 product HX-50PP',
+      'record LOT-A17 w4 map thick 725um',
     ],
     options: [
       'w<n> / site <n>: wafer (1–50) and site on the wafer map; leave out for a lot-level reading',
@@ -92,6 +113,7 @@ export const recordCommand = defineCommand<RecordCommandRequest>({
       'type hot|cold|spv <mV>, type hall <cm3/C>, type point +|−: a probe reading; type n|p: a type found otherwise',
       'at <T>: reading temperature; off 23 °C the resistivity is corrected to 23 °C (model estimate) before the check',
       'product <id>: names the lot’s product (needed once per lot); corrects <#>: this replaces reading # (kept in history)',
+      'map: a wafer map from the attached measurement file (docs/measurement-files.md): every site is stored, the map mean is the wafer’s reading, and the product’s uniformity limits are checked; thick <t> for a sheet-resistance map, edge <mm>, diam <d>, unit <u> as for `map`',
     ],
     seeAlso: ['lot', 'flags', 'clear', 'digest'],
   },
@@ -105,6 +127,10 @@ export const recordCommand = defineCommand<RecordCommandRequest>({
     const site = takeSite(args);
     const product = args.keyedWord(['product', 'prod']);
     const correctsWord = args.keyedWord(['corrects', 'correcting', 'replaces', 'correction']);
+    const isMap = args.flag(['map', 'wafermap', 'wafer-map']);
+    const diameter = isMap ? args.keyed(['diam', 'diameter'], 'length') : undefined;
+    const edge = isMap ? args.keyed(['edge', 'ee', 'exclusion'], 'length') : undefined;
+    const unitWord = isMap ? args.keyedWord(['unit', 'units']) : undefined;
     const rho = args.keyed(['rho', 'resistivity', 'res'], 'resistivity');
     const sheet = args.keyed(['sheet', 'rs'], 'sheetResistance');
     const thick = args.keyed(['thick', 'thickness'], 'length');
@@ -130,8 +156,23 @@ export const recordCommand = defineCommand<RecordCommandRequest>({
 
     let primary: PrimaryMeasurement | undefined;
     let bareNumber = false;
+    let map: PendingMap | undefined;
     if (rhoQ && sheetQ) throw new ArgError('bad_request', 'One resistivity reading per record: give rho or sheet, not both.');
-    if (rhoQ) {
+    if (isMap) {
+      if (rhoQ || sheetQ) throw new ArgError('bad_request', `A map is the wafer's reading: give the map or a single rho/sheet reading, not both. e.g. ${MAP_EXAMPLE}`);
+      if (wafer === undefined) throw new ArgError('missing_wafer', `A map is of one wafer: say which, e.g. ${MAP_EXAMPLE}`);
+      if (site !== undefined) throw new ArgError('bad_request', `A map covers the whole wafer: leave out the site, e.g. ${MAP_EXAMPLE}`);
+      if (thick) checkRange('The thickness', thick, LIMITS.thicknessCm, 'µm', 1e4);
+      if (spacing) checkRange('The probe spacing', spacing, LIMITS.spacingCm, 'mm', 10);
+      const mapTyped: Record<string, string> = {};
+      for (const [k, q] of Object.entries({ thickness: thick, spacing, diameter, edge })) if (q) mapTyped[k] = q.raw;
+      map = {
+        ...(diameter ? { diameterMm: diameter.value * 10 } : {}),
+        ...(edge ? { edgeExclusionMm: edge.value * 10 } : {}),
+        ...(unitWord ? { valueUnit: unitWord } : {}),
+        asTyped: mapTyped,
+      };
+    } else if (rhoQ) {
       checkRange('A resistivity', rhoQ, LIMITS.resistivityOhmCm, 'Ω·cm');
       bareNumber = rhoQ.unitAsTyped === '';
       primary = { kind: 'resistivity', resistivityOhmCm: rhoQ.value, asEntered: rhoQ.raw };
@@ -162,7 +203,7 @@ export const recordCommand = defineCommand<RecordCommandRequest>({
       if (!m) throw new ArgError('bad_value', `"corrects ${correctsWord}": give the reading number shown by "lot ${lotId}", e.g. corrects 12`);
       corrects = Number(m[1]);
     }
-    if (!primary && !typeReading && product === undefined) {
+    if (!primary && !map && !typeReading && product === undefined) {
       throw new ArgError('missing_value', `Give a reading (rho, sheet or type) or a product, e.g. ${EXAMPLE}`);
     }
     return {
@@ -176,6 +217,7 @@ export const recordCommand = defineCommand<RecordCommandRequest>({
         ...(product !== undefined ? { productId: product } : {}),
         ...(corrects !== undefined ? { corrects } : {}),
       },
+      ...(map ? { map: { ...map, ...(thick ? { thicknessCm: thick.value } : {}), ...(spacing ? { spacingCm: spacing.value } : {}) } } : {}),
       bareNumber,
       asTyped,
       confirmed,
@@ -185,8 +227,20 @@ export const recordCommand = defineCommand<RecordCommandRequest>({
   async run(req, ctx) {
     const lots = lotsOf(ctx);
     if (!lots) return errorReply('lots_unavailable', NOT_SET_UP);
+    let record = req.record as RecordRequest;
+    let mapAnalysis: ReturnType<typeof analyseMap> | undefined;
+    if (req.map) {
+      try {
+        const built = await mapReading(req.map, record, ctx, await productOfRecord(lots, record));
+        record = built.record;
+        mapAnalysis = built.analysis;
+      } catch (e) {
+        if (e instanceof ArgError) return errorReply(e.code, e.message, { usage: USAGE, example: MAP_EXAMPLE });
+        throw e;
+      }
+    }
     if (!req.confirmed) {
-      const far = await implausibleReading(lots, req.record, lots.confirmFactor);
+      const far = await implausibleReading(lots, record, lots.confirmFactor);
       if (far) {
         return {
           ok: false,
@@ -198,17 +252,91 @@ export const recordCommand = defineCommand<RecordCommandRequest>({
         };
       }
     }
-    const where = `${req.record.lotId}${req.record.wafer !== undefined ? ` w${req.record.wafer}` : ''}${req.record.site !== undefined ? ` site ${req.record.site}` : ''}`;
-    ctx.effects?.willStore(`your reading for ${where}`, `"lot ${req.record.lotId}" shows what is stored.`);
-    const r = await lots.record(req.record, { actor: actorOf(ctx), ...(ctx.eventId ? { eventId: ctx.eventId } : {}) });
+    const where = `${record.lotId}${record.wafer !== undefined ? ` w${record.wafer}` : ''}${record.site !== undefined ? ` site ${record.site}` : ''}`;
+    ctx.effects?.willStore(`your ${mapAnalysis ? 'map' : 'reading'} for ${where}`, `"lot ${record.lotId}" shows what is stored.`);
+    const r = await lots.record(record, { actor: actorOf(ctx), ...(ctx.eventId ? { eventId: ctx.eventId } : {}) });
     if (!r.ok) return lotErrorReply(r.error, { usage: USAGE, example: EXAMPLE });
     const numbers = r.value.outcome.readings.map((x) => `#${x.id}`);
     ctx.effects?.didStore(numbers.length > 0 ? `your reading ${numbers.join(', ')} for ${where}` : `the record for ${where}`);
     const reply = recordReply(identity(ctx), r.value, { bareNumber: req.bareNumber, asTyped: req.asTyped });
     const notes = r.value.duplicate ? [] : await afterRecordNotes(lots, r.value.outcome.readings, r.value.outcome.lotId, ctx.now());
     const confirmedNote = req.confirmed ? ['Stored as typed after confirmation, although far outside the product window.'] : [];
+    const withMap = mapAnalysis ? withMapDetails(reply, mapAnalysis) : reply;
     return notes.length + confirmedNote.length === 0
-      ? reply
-      : { ...reply, warnings: [...reply.warnings, ...notes.map((message) => ({ code: 'record_context', message }))], assumptions: [...reply.assumptions, ...confirmedNote] };
+      ? withMap
+      : { ...withMap, warnings: [...withMap.warnings, ...notes.map((message) => ({ code: 'record_context', message }))], assumptions: [...withMap.assumptions, ...confirmedNote] };
   },
 });
+
+const MAP_LABEL_MAX = 40;
+
+/**
+ * Read the attached file and convert every site the way `map` does (same code), with the
+ * product's dopant, model, probe head and edge exclusion where the command gives none. The
+ * sites go into the record; the lot service computes the statistics it checks from them.
+ */
+async function mapReading(
+  pending: PendingMap,
+  base: RecordRequest,
+  ctx: Parameters<typeof lotsOf>[0],
+  product: Product | undefined,
+): Promise<{ record: RecordRequest; analysis: ReturnType<typeof analyseMap> }> {
+  if (!ctx.attachment) throw new ArgError('missing_file', NO_MAP_FILE);
+  const file = await readAttachedFile(ctx, pending.valueUnit);
+  if (file.quantity === 'thickness') {
+    throw new ArgError('bad_file', `${file.name} is a thickness map; a map reading is resistivity (sheet resistance, V/I or resistivity columns). Show a thickness map with "map".`);
+  }
+  if (file.quantity !== 'resistivity' && pending.thicknessCm === undefined) {
+    throw new ArgError('missing_thickness', `${file.name} gives sheet resistance: give the thickness so every site has a resistivity, e.g. record ${base.lotId} w${base.wafer ?? 1} map thick 725um`);
+  }
+  const productSpacingCm = product?.probeSpacingMm !== undefined ? product.probeSpacingMm / 10 : undefined;
+  const spacingCm = pending.spacingCm ?? productSpacingCm ?? ctx.probeSpacingCm;
+  const edgeExclusionMm = pending.edgeExclusionMm ?? product?.uniformity?.edgeExclusionMm;
+  const analysis = analyseMap(file, {
+    ...(pending.thicknessCm !== undefined ? { thicknessCm: pending.thicknessCm } : {}),
+    ...(spacingCm !== undefined ? { spacingCm, spacingFromHead: pending.spacingCm === undefined && productSpacingCm === undefined } : {}),
+    ...(product ? { dopant: product.dopant, ...(product.model ? { modelId: product.model } : {}) } : {}),
+    ...(pending.diameterMm !== undefined ? { diameterMm: pending.diameterMm } : {}),
+    ...(edgeExclusionMm !== undefined ? { edgeExclusionMm } : {}),
+    show: 'rho',
+    lotId: base.lotId,
+    waferLabel: `W${String(base.wafer).padStart(2, '0')}`,
+  });
+  const ps = analysis.picture.sites;
+  const measuredSheet = file.quantity !== 'resistivity';
+  const sites: MapSite[] = ps.xMm.map((x, i) => {
+    const rho = ps.resistivityOhmCm?.[i] ?? null;
+    const measured = (measuredSheet ? ps.sheetResistanceOhmPerSq?.[i] : rho) ?? null;
+    return { label: (ps.name[i] ?? '').slice(0, MAP_LABEL_MAX), xMm: x, yMm: ps.yMm[i]!, value: measured, resistivityOhmCm: rho, included: ps.included[i]! };
+  });
+  const name = file.name.length > 120 ? `…${file.name.slice(-119)}` : file.name;
+  return {
+    analysis,
+    record: {
+      ...base,
+      primary: {
+        kind: 'map',
+        measured: measuredSheet ? 'sheet' : 'resistivity',
+        fileName: name,
+        ...(pending.thicknessCm !== undefined ? { thicknessCm: pending.thicknessCm } : {}),
+        ...(spacingCm !== undefined ? { spacingCm } : {}),
+        diameterMm: analysis.diameterMm,
+        edgeExclusionMm: analysis.edgeExclusionMm,
+        sites,
+        asEntered: `map ${name} (${sites.length} site${sites.length === 1 ? '' : 's'})`,
+      },
+    },
+  };
+}
+
+/** The record reply with what `map` would say about the same file: the picture, definitions, outliers, notes. */
+function withMapDetails(reply: ReplyOk, analysis: ReturnType<typeof analyseMap>): ReplyOk {
+  const seen = new Set(reply.assumptions);
+  return {
+    ...reply,
+    picture: analysis.picture,
+    assumptions: [...reply.assumptions, ...analysis.assumptions.filter((a) => !seen.has(a))],
+    warnings: [...reply.warnings, ...analysis.warnings],
+    sections: [...(reply.sections ?? []), ...analysis.sections.slice(0, 3)],
+  };
+}

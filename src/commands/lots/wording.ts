@@ -54,7 +54,7 @@ export function flagDetailText(d: FlagDetail): string {
   switch (d.code) {
     case 'out_of_window': {
       const limit = d.side === 'above' ? d.max : d.min;
-      const what = d.quantity === 'resistivityOhmCm' ? 'resistivity' : 'dopant density';
+      const what = d.basis === 'map_mean' ? 'map mean resistivity' : d.quantity === 'resistivityOhmCm' ? 'resistivity' : 'dopant density';
       return `${what} ${quantityValue(d.quantity, d.value)} is ${pct(d.marginPercent)} ${d.side} the ${quantityValue(d.quantity, limit)} ${d.side === 'above' ? 'maximum' : 'minimum'} (window ${windowText(d.quantity, d.min, d.max)})`;
     }
     case 'type_mismatch':
@@ -63,6 +63,8 @@ export function flagDetailText(d: FlagDetail): string {
       return d.across === 'sites'
         ? `site-to-site spread ${pct(d.spreadPercent)} on w${d.wafer ?? '?'} over the ${pct(d.limitPercent)} limit (${d.count} sites, ${ohmCm(d.minOhmCm)} – ${ohmCm(d.maxOhmCm)}, ${SPREAD_DEFINITION[d.definition] ?? d.definition})`
         : `wafer-to-wafer spread ${pct(d.spreadPercent)} over the ${pct(d.limitPercent)} limit (${d.count} wafers, means ${ohmCm(d.minOhmCm)} – ${ohmCm(d.maxOhmCm)}, ${SPREAD_DEFINITION[d.definition] ?? d.definition})`;
+    case 'uniformity_over_limit':
+      return `map non-uniformity ${pct(d.nonUniformityPercent)} (1σ/mean) on w${d.wafer} over the ${pct(d.limitPercent)} limit (${d.count} sites)`;
     case 'outside_model_validity':
       if (d.refusal) return `the ρ → N conversion could not be made: ${refusalMessage(d.refusal)}`;
       return `the ρ → N conversion is outside the ${d.model} model's range: ${d.quantity === 'resistivityOhmCm' ? ohmCm(d.input) : formatNumber(d.input)} against ${d.min !== undefined && d.max !== undefined ? `${formatNumber(d.min)} – ${formatNumber(d.max)}${d.quantity === 'resistivityOhmCm' ? ' Ω·cm' : ''}` : 'its stated range'}; the density is an extrapolation`;
@@ -77,6 +79,7 @@ export const FLAG_TITLES: Record<string, string> = {
   out_of_window: 'outside window',
   type_mismatch: 'type mismatch',
   spread_over_limit: 'spread over limit',
+  uniformity_over_limit: 'non-uniform map',
   outside_model_validity: 'outside model validity',
   no_spec: 'no product spec',
 };
@@ -105,7 +108,7 @@ export function checkText(c: Check, modelName?: string): { name: string; result:
       const inside = c.status === 'pass';
       const limitWord = c.limit === 'max' ? 'maximum' : 'minimum';
       return {
-        name: c.quantity === 'resistivityOhmCm' ? 'Resistivity window' : 'Density window',
+        name: c.basis === 'map_mean' ? 'Map mean window' : c.quantity === 'resistivityOhmCm' ? 'Resistivity window' : 'Density window',
         result: inside ? 'pass' : 'FLAG',
         detail: inside
           ? `${quantityValue(c.quantity, c.value)} in ${windowText(c.quantity, c.min, c.max)}; ${pct(c.marginPercent)} inside the ${limitWord}`
@@ -129,6 +132,8 @@ export function checkText(c: Check, modelName?: string): { name: string; result:
       };
     case 'site_spread':
       return { name: `Site spread w${c.wafer}`, result: c.status === 'pass' ? 'pass' : 'FLAG', detail: `${pct(c.spreadPercent)} over ${c.count} sites (limit ${pct(c.limitPercent)})` };
+    case 'uniformity':
+      return { name: `Non-uniformity w${c.wafer}`, result: c.status === 'pass' ? 'pass' : 'FLAG', detail: `${pct(c.nonUniformityPercent)} (1σ/mean) over ${c.count} sites (limit ${pct(c.limitPercent)})` };
     case 'wafer_spread':
       return { name: 'Wafer-to-wafer spread', result: c.status === 'pass' ? 'pass' : 'FLAG', detail: `${pct(c.spreadPercent)} over ${c.count} wafers (limit ${pct(c.limitPercent)})` };
     case 'spec':

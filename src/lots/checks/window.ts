@@ -26,21 +26,25 @@ export function windowCheck(
 }
 
 /**
- * The product's window (resistivity, or dopant density when the spec is in density) at 23 °C:
+ * The product's window (resistivity, or dopant density when the spec is in density) at 23 °C
+ * (for a map's mean with `basis` 'map_mean': the product's uniformity mean window if it has one):
  * outside → an `out_of_window` flag; inside but nearer a limit than the product's
  * `nearLimitPercent` → a note.
  */
-export function productWindowCheck(product: Product, rho: number, density: number | undefined, where: FindingPlace): CheckOutput {
+export function productWindowCheck(product: Product, rho: number, density: number | undefined, where: FindingPlace, basis?: 'map_mean'): CheckOutput {
   const checks: Check[] = [];
   const findings: FlagFinding[] = [];
   const notes: LotNote[] = [];
-  const windowQuantity = product.resistivityOhmCm ? 'resistivityOhmCm' : 'dopantDensityPerCm3';
-  const window = (product.resistivityOhmCm ?? product.dopantDensityPerCm3) as SpecWindow;
+  // A map's mean is checked against the product's uniformity mean window when it has one.
+  const mapMeanWindow = basis === 'map_mean' ? product.uniformity?.meanOhmCm : undefined;
+  const windowQuantity = mapMeanWindow || product.resistivityOhmCm ? 'resistivityOhmCm' : 'dopantDensityPerCm3';
+  const window = (mapMeanWindow ?? product.resistivityOhmCm ?? product.dopantDensityPerCm3) as SpecWindow;
+  const tag = mapMeanWindow ? { basis: 'map_mean' as const } : {};
   const value = windowQuantity === 'resistivityOhmCm' ? rho : density;
   if (value === undefined) {
     notes.push({ code: 'window_not_checked', reason: 'conversion_refused' });
   } else {
-    const w = windowCheck(windowQuantity, value, window);
+    const w = { ...windowCheck(windowQuantity, value, window), ...tag };
     checks.push(w);
     if (w.status === 'fail') {
       findings.push({
@@ -54,6 +58,7 @@ export function productWindowCheck(product: Product, rho: number, density: numbe
           max: window.max,
           side: w.limit === 'max' ? 'above' : 'below',
           marginPercent: w.marginPercent,
+          ...tag,
         },
       });
     } else if (product.nearLimitPercent !== undefined && w.marginPercent < product.nearLimitPercent) {

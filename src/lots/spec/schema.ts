@@ -9,6 +9,7 @@
  *       dopant: boron
  *       resistivityOhmCm: { min: 8, max: 12 }        # window at 23 °C
  *       spread: { siteToSitePercent: 6, waferToWaferPercent: 10 }
+ *       uniformity: { nonUniformityPercentMax: 4, meanOhmCm: { min: 8.5, max: 11.5 } }   # maps
  *       notes: 200 mm prime, boron, 8–12 Ω·cm
  *
  * Either `resistivityOhmCm` or `dopantDensityPerCm3` is the window (not both).
@@ -39,6 +40,26 @@ export const SpreadLimits = z
   .strict();
 export type SpreadLimits = z.infer<typeof SpreadLimits>;
 
+/**
+ * Limits for a wafer map recorded with `record <lot> w<n> map` (a measurement file): the
+ * non-uniformity 1σ/mean of the sites' resistivity inside the edge exclusion, and a window for
+ * the map's mean resistivity at 23 °C (checked instead of the product window for a map's mean).
+ */
+export const UniformityLimits = z
+  .object({
+    /** Largest allowed 1σ/mean × 100 of the site resistivities, %. */
+    nonUniformityPercentMax: positive.max(100).optional(),
+    /** Window for the mean resistivity of a map at 23 °C, Ω·cm. */
+    meanOhmCm: SpecWindow.optional(),
+    /** Edge exclusion the statistics use, mm (default 3 mm when neither this nor the command gives one). */
+    edgeExclusionMm: z.number().finite().min(0).max(50).optional(),
+  })
+  .strict()
+  .refine((u) => u.nonUniformityPercentMax !== undefined || u.meanOhmCm !== undefined, {
+    message: 'give nonUniformityPercentMax or meanOhmCm {min, max} (or both)',
+  });
+export type UniformityLimits = z.infer<typeof UniformityLimits>;
+
 const DOPANTS = ['boron', 'phosphorus', 'arsenic', 'antimony'] as const satisfies readonly Dopant[];
 
 /** Product ids as people type them: letters, digits, '-', '_', '.', up to 32 characters. */
@@ -51,6 +72,7 @@ export const ProductSpec = z
     resistivityOhmCm: SpecWindow.optional(),
     dopantDensityPerCm3: SpecWindow.optional(),
     spread: SpreadLimits.optional(),
+    uniformity: UniformityLimits.optional(),
     /** A reading this close to a limit (in % of the limit) passes with a warning. */
     nearLimitPercent: z.number().finite().min(0).max(50).optional(),
     /** The pin spacing of the probe head this product is measured with, mm (sheet readings without a spacing). */

@@ -48,12 +48,12 @@ describe('migrations', () => {
     const url = await freshPostgresDatabase();
     const backends = await instances(4, url);
     const rows = await backends[0]!.pool.query<{ id: string; n: number }>('SELECT id, count(*)::integer AS n FROM schema_migrations GROUP BY id ORDER BY id');
-    expect(rows.rows.map((r) => r.id)).toEqual(['conversations-001-create', 'events-001-create', 'lots-001-create', 'results-001-create']);
+    expect(rows.rows.map((r) => r.id)).toEqual(['conversations-001-create', 'events-001-create', 'lots-001-create', 'lots-002-map-sites', 'results-001-create']);
     expect(rows.rows.every((r) => r.n === 1)).toBe(true);
     await closeAll(backends);
     // A later start finds everything applied and changes nothing.
     const [again] = await instances(1, url);
-    expect((await again!.pool.query('SELECT count(*)::integer AS n FROM schema_migrations')).rows[0].n).toBe(4);
+    expect((await again!.pool.query('SELECT count(*)::integer AS n FROM schema_migrations')).rows[0].n).toBe(5);
     await again!.close();
   });
 });

@@ -15,7 +15,7 @@ describe('SQLite lot store', () => {
     await h.close();
     const again = SqliteLotRepository.open(path);
     const migrations = again.database.prepare("SELECT id FROM schema_migrations WHERE id LIKE 'lots-%'").all();
-    expect(migrations).toEqual([{ id: 'lots-001-create' }]);
+    expect(migrations).toEqual([{ id: 'lots-001-create' }, { id: 'lots-002-map-sites' }]);
     expect(await again.countReadings()).toBe(1);
     expect(again.database.pragma('journal_mode', { simple: true })).toBe('wal');
     expect(again.database.pragma('synchronous', { simple: true })).toBe(2); // FULL

@@ -8,7 +8,7 @@
  */
 import type pg from 'pg';
 import type { StoredFlag } from '../../../lots/flags.js';
-import type { StoredReading } from '../../../lots/readings.js';
+import type { MapSite, StoredReading } from '../../../lots/readings.js';
 import type {
   ClearOutcome,
   ClearPlan,
@@ -164,6 +164,25 @@ export class PgLotRepository implements LotRepository {
         );
         readingIds.push(r.rows[0]!.id);
       }
+      if (p.mapSites) {
+        // Every site in one statement: arrays unnested into rows.
+        const sites = p.mapSites.sites;
+        await q.query(
+          `INSERT INTO lot_map_sites (reading_id, seq, label, x_mm, y_mm, value, resistivity_ohm_cm, included)
+           SELECT $1, s.seq - 1, s.label, s.x, s.y, s.v, s.rho, s.inc
+           FROM unnest($2::text[], $3::float8[], $4::float8[], $5::float8[], $6::float8[], $7::boolean[])
+             WITH ORDINALITY AS s(label, x, y, v, rho, inc, seq)`,
+          [
+            readingIds[p.mapSites.readingIndex],
+            sites.map((x) => x.label),
+            sites.map((x) => x.xMm),
+            sites.map((x) => x.yMm),
+            sites.map((x) => x.value),
+            sites.map((x) => x.resistivityOhmCm),
+            sites.map((x) => x.included),
+          ],
+        );
+      }
 
       const closedIds: number[] = [];
       const correctedBy = p.supersedingIndex !== undefined ? readingIds[p.supersedingIndex] : undefined;
@@ -276,6 +295,14 @@ export class PgLotRepository implements LotRepository {
   async lotIdsOfProduct(productId: string, limit: number): Promise<string[]> {
     const r = await this.pool.query<{ lot_id: string }>('SELECT lp.lot_id FROM lot_products lp WHERE lower(lp.product_id) = lower($1) AND lp.id = (SELECT MAX(id) FROM lot_products WHERE lot_id = lp.lot_id) ORDER BY lp.lot_id LIMIT $2', [productId, limit]);
     return r.rows.map((row) => row.lot_id);
+  }
+
+  async mapSites(readingId: number): Promise<MapSite[]> {
+    const r = await this.pool.query<{ label: string; x_mm: number; y_mm: number; value: number | null; resistivity_ohm_cm: number | null; included: boolean }>(
+      'SELECT label, x_mm, y_mm, value, resistivity_ohm_cm, included FROM lot_map_sites WHERE reading_id = $1 ORDER BY seq',
+      [readingId],
+    );
+    return r.rows.map((x) => ({ label: x.label, xMm: x.x_mm, yMm: x.y_mm, value: x.value, resistivityOhmCm: x.resistivity_ohm_cm, included: x.included }));
   }
 
   async listFlags(query: FlagQuery): Promise<FlagWithProduct[]> {

@@ -173,4 +173,22 @@ ${appendOnly('lot_flag_clearances')}
 ${appendOnly('lot_events')}
 `,
   },
+  {
+    // The sites of a wafer map recorded from a measurement file, beside its reading, append-only.
+    id: 'lots-002-map-sites',
+    sql: `
+CREATE TABLE lot_map_sites (
+  reading_id         integer NOT NULL REFERENCES lot_readings(id),
+  seq                integer NOT NULL CHECK (seq >= 0),
+  label              text NOT NULL,
+  x_mm               double precision NOT NULL,
+  y_mm               double precision NOT NULL,
+  value              double precision CHECK (value IS NULL OR value > 0),
+  resistivity_ohm_cm double precision CHECK (resistivity_ohm_cm IS NULL OR resistivity_ohm_cm > 0),
+  included           boolean NOT NULL,
+  PRIMARY KEY (reading_id, seq)
+);
+${appendOnly('lot_map_sites')}
+`,
+  },
 ];

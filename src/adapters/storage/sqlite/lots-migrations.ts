@@ -127,4 +127,24 @@ ${appendOnly('lot_flag_clearances')}
 ${appendOnly('lot_events')}
 `,
   },
+  {
+    // The sites of a wafer map recorded from a measurement file (record <lot> w<n> map): one row
+    // per site, beside its reading, append-only like the reading. Site labels are the file's
+    // (any text, any number of sites up to the file limit), not the 1–999 of spot readings.
+    id: 'lots-002-map-sites',
+    sql: `
+CREATE TABLE lot_map_sites (
+  reading_id         INTEGER NOT NULL REFERENCES lot_readings(id),
+  seq                INTEGER NOT NULL CHECK (seq >= 0),
+  label              TEXT NOT NULL,
+  x_mm               REAL NOT NULL,
+  y_mm               REAL NOT NULL,
+  value              REAL CHECK (value IS NULL OR value > 0),
+  resistivity_ohm_cm REAL CHECK (resistivity_ohm_cm IS NULL OR resistivity_ohm_cm > 0),
+  included           INTEGER NOT NULL CHECK (included IN (0, 1)),
+  PRIMARY KEY (reading_id, seq)
+) WITHOUT ROWID;
+${appendOnly('lot_map_sites')}
+`,
+  },
 ];

@@ -27,7 +27,7 @@ import type {
   RecordWrite,
   WriteResult,
 } from '../../../lots/repository.js';
-import type { StoredReading } from '../../../lots/readings.js';
+import type { MapSite, StoredReading } from '../../../lots/readings.js';
 import { LOT_MIGRATIONS } from './lots-migrations.js';
 import { digestFromRow, FLAG_SELECT, flagFromRow, readingFromRow, type DigestRow, type FlagRow, type ReadingRow } from '../shared/lot-rows.js';
 
@@ -95,6 +95,11 @@ export class SqliteLotRepository implements LotRepository {
            @type_method, @resistivity_ohm_cm, @dopant_density_per_cm3, @carrier_type, @temperature_k, @verdict,
            @evaluation_json, @supersedes, @user_id, @user_name, @surface, @channel_id, @event_id, @event_seq, @recorded_at, @note)`,
       ),
+      insertMapSite: p(
+        `INSERT INTO lot_map_sites (reading_id, seq, label, x_mm, y_mm, value, resistivity_ohm_cm, included)
+         VALUES (?, ?, ?, ?, ?, ?, ?, ?)`,
+      ),
+      mapSites: p('SELECT label, x_mm, y_mm, value, resistivity_ohm_cm, included FROM lot_map_sites WHERE reading_id = ? ORDER BY seq'),
       openFlagsOfLot: p(`${FLAG_SELECT} WHERE f.lot_id = ? AND c.flag_id IS NULL ORDER BY f.id`),
       flagsOfLot: p(`${FLAG_SELECT} WHERE f.lot_id = ? ORDER BY f.id`),
       flagById: p(`${FLAG_SELECT} WHERE f.id = ?`),
@@ -134,6 +139,11 @@ export class SqliteLotRepository implements LotRepository {
   /** Open (and migrate) the database file; ':memory:' for tests. */
   static open(path: string): SqliteLotRepository {
     return new SqliteLotRepository(openDatabase(path, LOT_MIGRATIONS));
+  }
+
+  async mapSites(readingId: number): Promise<MapSite[]> {
+    const rows = this.st.mapSites.all(readingId) as { label: string; x_mm: number; y_mm: number; value: number | null; resistivity_ohm_cm: number | null; included: number }[];
+    return rows.map((r) => ({ label: r.label, xMm: r.x_mm, yMm: r.y_mm, value: r.value, resistivityOhmCm: r.resistivity_ohm_cm, included: r.included === 1 }));
   }
 
   async countLots(): Promise<number> {
@@ -210,6 +220,12 @@ export class SqliteLotRepository implements LotRepository {
         });
         readingIds.push(Number(info.lastInsertRowid));
       });
+      if (p.mapSites) {
+        const readingId = readingIds[p.mapSites.readingIndex]!;
+        p.mapSites.sites.forEach((site, seq) => {
+          this.st.insertMapSite.run(readingId, seq, site.label, site.xMm, site.yMm, site.value, site.resistivityOhmCm, site.included ? 1 : 0);
+        });
+      }
 
       const closedIds: number[] = [];
       const correctedBy = p.supersedingIndex !== undefined ? readingIds[p.supersedingIndex] : undefined;
