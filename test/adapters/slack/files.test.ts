@@ -23,8 +23,8 @@ afterEach(async () => {
   fake.downloads.length = 0;
 });
 
-async function start(): Promise<TestApp> {
-  const a = await startTestApp({ fake });
+async function start(env: Record<string, string> = {}): Promise<TestApp> {
+  const a = await startTestApp({ fake, env });
   apps.push(a);
   return a;
 }
@@ -63,6 +63,24 @@ describe('a measurement file on Slack', () => {
     await fake.until(() => fake.callsTo('files.completeUploadExternal').length === 1);
     expect((fake.callsTo('chat.postMessage')[0]!.params as Posted).text).toMatch(/dopant density/);
     expect((fake.callsTo('files.completeUploadExternal')[0]!.params as { channel_id?: string }).channel_id).toBe('D0PRIYA');
+  });
+
+  it('record … map with the file: one reading with every site stored, the card and the map picture in the thread', async () => {
+    const a = await start({ RECORD_USERS: 'U0PRIYA' });
+    const lots = a.app.lots!;
+    const before = await lots.repo.countReadings();
+    const file = fake.shareFile('LOT-A17-w06-rs.csv', readFileSync('examples/maps/LOT-A17-w06-rs.csv', 'utf8'));
+    const event = { type: 'app_mention', user: 'U0PRIYA', text: `<@${FAKE_BOT_USER}> record LOT-A17 w6 map thick 725um`, ts: '1930000550.000100', channel: 'C0ETCHBAY', event_ts: '1930000550.000100', files: [file] };
+    expect(await deliver(a, event, 'EvF1M')).toBe(200);
+    await fake.until(() => fake.callsTo('files.completeUploadExternal').length === 1);
+    const card = fake.callsTo('chat.postMessage')[0]!.params as Posted;
+    expect(card.thread_ts).toBe('1930000550.000100');
+    expect(card.text).toMatch(/LOT-A17 w6 · FLAGGED: non-uniform map/);
+    expect(await lots.repo.countReadings()).toBe(before + 1);
+    const view = await lots.service.lot('LOT-A17');
+    if (!view.ok) throw new Error('lot');
+    const reading = view.value.readings.find((r) => r.evaluation.map !== undefined)!;
+    expect((await lots.repo.mapSites(reading.id)).length).toBe(49);
   });
 
   it('a bad file gets the line and the problem, and nothing is uploaded', async () => {
