@@ -200,6 +200,31 @@ function friendlyCsvError(e: unknown): MeasurementFileError {
 
 let csv: typeof import('csv-parse/sync') | undefined;
 
+const CSV_OPTIONS = { skip_empty_lines: true, trim: true, comment: '#', bom: true } as const;
+
+/**
+ * Records with the line each ends on. csv-parse's per-record `info` costs about half the parse
+ * (34 of 61 ms at 10 000 sites), so when the file is plain — no quote characters and no '#'
+ * after the start of a line, where a record is exactly a non-empty line that is not a comment —
+ * the lines are counted here and checked against the record count; otherwise (or if the count
+ * disagrees) csv-parse reports them itself.
+ */
+function parseWithLines(parse: (typeof import('csv-parse/sync'))['parse'], text: string, delimiter: ',' | ';'): { record: string[]; info: { lines: number } }[] {
+  const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+  const plain = !body.includes('"') && !/[^\n\r]#/.test(body.replace(/^[ \t]*#.*$/gm, ''));
+  if (plain) {
+    const rows = parse(text, { ...CSV_OPTIONS, delimiter }) as string[][];
+    const lines: number[] = [];
+    const all = body.split('\n');
+    for (let i = 0; i < all.length; i++) {
+      const l = all[i]!.endsWith('\r') ? all[i]!.slice(0, -1) : all[i]!;
+      if (l !== '' && !l.trimStart().startsWith('#')) lines.push(i + 1);
+    }
+    if (lines.length === rows.length) return rows.map((record, k) => ({ record, info: { lines: lines[k]! } }));
+  }
+  return parse(text, { ...CSV_OPTIONS, delimiter, info: true }) as unknown as { record: string[]; info: { lines: number } }[];
+}
+
 /** Read a measurement file; throws MeasurementFileError (with the line) on any problem. */
 export async function readMeasurementFile(name: string, text: string, options: { valueUnit?: string } = {}): Promise<MeasurementFile> {
   csv ??= await import('csv-parse/sync');
@@ -209,7 +234,7 @@ export async function readMeasurementFile(name: string, text: string, options: {
   const delimiter: ',' | ';' = (firstLine.match(/;/g)?.length ?? 0) > (firstLine.match(/,/g)?.length ?? 0) ? ';' : ',';
   let records: { record: string[]; info: { lines: number } }[];
   try {
-    records = parse(text, { delimiter, info: true, skip_empty_lines: true, trim: true, comment: '#', bom: true }) as unknown as typeof records;
+    records = parseWithLines(parse, text, delimiter);
   } catch (e) {
     throw friendlyCsvError(e);
   }

@@ -117,6 +117,11 @@ describe('bad measurement files get the line and the problem', () => {
     ['a header only', 'x,y,rs\n', /line 1: the file has a header but no sites/],
     ['an empty file', '\n\n', /the file is empty/],
     ['two wafers', 'x,y,rs,wafer\n0,0,40,W01\n1,1,41,W02\n', /one wafer per file/],
+    // Line numbers past comments and blank lines, counted by us (plain file) and by csv-parse
+    // (a quoted header, or a '#' inside a line, sends the file to csv-parse's own counting).
+    ['a bad value after comments and blank lines', '# tool 4PP-2\nx,y,rs\n\n0,0,40\n# re-probe\n\n10,0,4o\n', /line 7: the "rs" value "4o" is not a number/],
+    ['the same with a quoted header', '# tool 4PP-2\n"x",y,rs\n\n0,0,40\n# re-probe\n\n10,0,4o\n', /line 7: the "rs" value "4o" is not a number/],
+    ['the same with a trailing comment', '# tool 4PP-2\nx,y,rs\n\n0,0,40 # centre\n# re-probe\n\n10,0,4o\n', /line 7: the "rs" value "4o" is not a number/],
   ];
   for (const [what, text, message] of cases) {
     it(what, async () => {

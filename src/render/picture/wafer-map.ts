@@ -83,6 +83,9 @@ function waferOutline(cx: number, cy: number, r: number): string {
   return `M${n2(sx)},${n2(sy)} A${n2(r)},${n2(r)} 0 1 0 ${n2(ex)},${n2(sy)} L${n2(cx)},${n2(cy + r - depth)} Z`;
 }
 
+/** Most sites drawn as dots. */
+export const DOTS_MAX = 2000;
+
 export function waferMapSvg(p: WaferMapPicture): string {
   const radius = p.diameterMm / 2;
   const scale = MAP.size / p.diameterMm;
@@ -149,7 +152,10 @@ export function waferMapSvg(p: WaferMapPicture): string {
     parts.push(`<circle cx="${n2(cx)}" cy="${n2(cy)}" r="${n2((radius - p.edgeExclusionMm) * scale)}" fill="none" stroke="${INK.muted}" stroke-width="1" stroke-dasharray="6 5"/>`);
   }
   // Sites: small dots (fewer, larger dots on sparse maps); outliers ringed in red; excluded hollow.
-  const dot = p.sites.xMm.length > 2000 ? 1.2 : p.sites.xMm.length > 400 ? 2 : 3.5;
+  // Above DOTS_MAX sites the dots would cover the map (and cost the rasteriser about 90 ms at
+  // 10 000): only the outliers are drawn, and the footer says so.
+  const drawDots = p.sites.xMm.length <= DOTS_MAX;
+  const dot = p.sites.xMm.length > 400 ? 2 : 3.5;
   const measured: [number, number][] = [];
   const excluded: [number, number][] = [];
   const outliers: [number, number][] = [];
@@ -159,8 +165,8 @@ export function waferMapSvg(p: WaferMapPicture): string {
     else measured.push(at);
     if (p.sites.outlier[i]) outliers.push(at);
   }
-  if (excluded.length) parts.push(`<path d="${dotsPath(excluded, dot)}" fill="none" stroke="${INK.muted}" stroke-width="1"/>`);
-  if (measured.length) parts.push(`<path d="${dotsPath(measured, dot)}" fill="${INK.paper}" stroke="${INK.frame}" stroke-width="0.8"/>`);
+  if (drawDots && excluded.length) parts.push(`<path d="${dotsPath(excluded, dot)}" fill="none" stroke="${INK.muted}" stroke-width="1"/>`);
+  if (drawDots && measured.length) parts.push(`<path d="${dotsPath(measured, dot)}" fill="${INK.paper}" stroke="${INK.frame}" stroke-width="0.8"/>`);
   if (outliers.length) parts.push(`<path d="${dotsPath(outliers, dot + 6)}" fill="none" stroke="${INK.alert}" stroke-width="2.5"/>`);
 
   // Colour bar with ticks in the value's unit.
@@ -189,6 +195,13 @@ export function waferMapSvg(p: WaferMapPicture): string {
   y += 30;
   parts.push(`<circle cx="${bar.x + 6}" cy="${y - 5}" r="7" fill="none" stroke="${INK.alert}" stroke-width="2.5"/>`);
   parts.push(text(bar.x + 20, y, 'outlier site (Tukey)', { size: 13, fill: INK.muted }));
-  parts.push(text(30, WAFER_MAP_HEIGHT - 14, 'Filled by linear interpolation between sites (Delaunay); blank where nothing was measured. Dashed: edge exclusion.', { size: 12, fill: INK.muted }));
+  parts.push(
+    text(
+      30,
+      WAFER_MAP_HEIGHT - 14,
+      `Filled by linear interpolation between sites (Delaunay); blank where nothing was measured. Dashed: edge exclusion.${drawDots ? '' : ` Sites not drawn above ${DOTS_MAX.toLocaleString('en-US')} (all are in the JSON).`}`,
+      { size: 12, fill: INK.muted },
+    ),
+  );
   return svgDocument(WAFER_MAP_WIDTH, WAFER_MAP_HEIGHT, parts.join(''));
 }
