@@ -18,14 +18,13 @@ import { existsSync, mkdirSync, readFileSync, statSync, writeFileSync } from 'no
 import { userInfo } from 'node:os';
 import { basename, dirname, join } from 'node:path';
 import { createLogger, type AppLogger } from './adapters/log.js';
+import { proxyConfigured } from './adapters/proxy-settings.js';
 import { Application, StartupError, type ApplicationOptions, type Handler } from './app/application.js';
 import type { DailySummaryJob } from './app/daily-summary.js';
 import { StorageError, type StorageBackend } from './app/ports.js';
 import { SurfaceConfigError, type Surface } from './app/surface.js';
 import { consoleSummaryNotifier, runConsole } from './adapters/console/console.js';
 import type { SlackDeps, SlackRuntime } from './adapters/slack/index.js';
-import { createMetrics } from './adapters/metrics.js';
-import { proxiedFetch } from './adapters/proxy.js';
 import { openBackend } from './adapters/storage/open.js';
 import { describeConfigProblems, loadConfig, readEnvironment, surfaceOf, type Config } from './config.js';
 import { MAX_FILE_BYTES } from './commands/measurement-file.js';
@@ -332,6 +331,8 @@ export async function serve(config: Config, deps: ServeDeps): Promise<number> {
   const logger = deps.logger ?? createLogger({ sink: (line) => deps.io.stderr.write(line + '\n'), level: config.base.logLevel, secrets, format: config.base.logFormat ?? ((deps.io.stderr as { isTTY?: boolean }).isTTY ? 'text' : 'json') });
   // Metrics for every surface's /metrics; the gauges read the database at scrape time.
   let built: Application | undefined;
+  // prom-client and undici (the proxy) load only for a service: the CLI and the console never pay for them.
+  const { createMetrics } = await import('./adapters/metrics.js');
   const metrics = createMetrics(() => ({
     ...(built?.lots ? { readingsStored: () => built!.lots!.repo.countReadings(), flagsOpen: async () => (await built!.lots!.repo.listFlags({ openOnly: true })).length } : {}),
     ...(built ? { storeHealthy: () => built!.backend.healthy() } : {}),
@@ -340,7 +341,7 @@ export async function serve(config: Config, deps: ServeDeps): Promise<number> {
   built = app;
   if (!app) return EX_CONFIG;
   const env = deps.env ?? process.env;
-  const outbound = proxiedFetch(env);
+  const outbound = proxyConfigured(env) ? (await import('./adapters/proxy.js')).proxiedFetch(env) : undefined;
   if (outbound) logger.info('outbound HTTP goes through the proxy named by HTTPS_PROXY / HTTP_PROXY (NO_PROXY excepted)');
   const surfaces: Surface[] = [];
   let slack: SlackRuntime | undefined;

@@ -6,13 +6,9 @@
  */
 import { EnvHttpProxyAgent, fetch as undiciFetch } from 'undici';
 
-type Env = Readonly<Record<string, string | undefined>>;
+import { proxyConfigured, type Env } from './proxy-settings.js';
 
-const PROXY_VARIABLES = ['HTTPS_PROXY', 'https_proxy', 'HTTP_PROXY', 'http_proxy'];
-
-export function proxyConfigured(env: Env): boolean {
-  return PROXY_VARIABLES.some((v) => (env[v] ?? '').trim() !== '');
-}
+export { proxyConfigured };
 
 /**
  * A `fetch` that goes through the proxy the variables name (undici's EnvHttpProxyAgent reads

@@ -7,6 +7,7 @@
  * mA, µA, cm^-3, cm-3, /cm3, cm⁻³, cm3/C, %/K; numbers 1.5e15, 1.5x10^15, 1.5×10¹⁵.
  */
 import { create, unitDependencies, type Unit } from 'mathjs';
+import { MATHJS_PREFIXES, MATHJS_UNIT_NAMES } from './unit-words.js';
 
 // Only the unit machinery of mathjs (not its whole expression library), made on first use: a
 // one-shot answer whose units are all common ones (below) never builds it.
@@ -229,7 +230,8 @@ function readUnitUncached(unitText: string, expected?: Dimension): UnitReading |
   const tempWord = TEMPERATURE_WORDS.get(u.toLowerCase().replace(/\s+/g, ' '));
   // A bare "C" is a temperature only where one is expected (otherwise it would be coulombs).
   if (tempWord && (u.toLowerCase() !== 'c' || expected === 'temperature' || expected === undefined)) {
-    const toK = (n: number) => mathUnit(n, tempWord).toNumber('K');
+    // The definitions of the scales (exact, as mathjs has them): T/K = t/°C + 273.15 = (t/°F + 459.67)·5/9.
+    const toK = (n: number) => (tempWord === 'degC' ? n + 273.15 : tempWord === 'degF' ? ((n + 459.67) * 5) / 9 : n);
     return {
       dimension: 'temperature',
       convert: toK,
@@ -250,9 +252,11 @@ function readUnitUncached(unitText: string, expected?: Dimension): UnitReading |
   }
   const common = COMMON_UNITS.get(u.replace(/\bcm3\b/g, 'cm^3'));
   if (common) return { dimension: common.dimension, convert: (n) => n * common.factor, display: common.display };
+  const mathText = u.replace(/\bcm(\d)\b/g, 'cm^$1').replace(/\bm(\d)\b/g, 'm^$1');
+  if (!mayBeOurUnit(mathText)) return { error: `I don't know the unit "${unitText}"` };
   let parsed: Unit;
   try {
-    parsed = mathUnit(`1 ${u.replace(/\bcm(\d)\b/g, 'cm^$1').replace(/\bm(\d)\b/g, 'm^$1')}`);
+    parsed = mathUnit(`1 ${mathText}`);
   } catch {
     return { error: `I don't know the unit "${unitText}"` };
   }
@@ -264,6 +268,22 @@ function readUnitUncached(unitText: string, expected?: Dimension): UnitReading |
     }
   }
   return { error: `"${unitText}" is not a unit I can use here` };
+}
+
+/**
+ * False when some word of `text` cannot be a mathjs unit of ours (a prefix and the name of a
+ * length, resistance, voltage, current, charge, flux density or temperature unit,
+ * src/commands/unit-words.ts): then mathjs would refuse it or give a quantity we do not read
+ * ("at" would be atto-tonnes), and asking it would build its unit machinery (about 100 ms) for
+ * nothing. The tokenizer asks this of every word run after a
+ * number ("8.2 ohm-cm p": "ohm cm p"). Words with digits or other letters are left to mathjs.
+ */
+function mayBeOurUnit(text: string): boolean {
+  for (const word of text.match(/[A-Za-z_][A-Za-z0-9_]*/g) ?? []) {
+    if (/\d/.test(word) || MATHJS_UNIT_NAMES.has(word)) continue;
+    if (!MATHJS_PREFIXES.some((p) => word.length > p.length && word.startsWith(p) && MATHJS_UNIT_NAMES.has(word.slice(p.length)))) return false;
+  }
+  return true;
 }
 
 const CANONICAL_MATHJS: readonly (readonly [Dimension, string])[] = [
