@@ -17,7 +17,7 @@
 import { existsSync, mkdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { userInfo } from 'node:os';
 import { basename, dirname, join } from 'node:path';
-import { createLogger, type AppLogger } from './adapters/log.js';
+import type { AppLogger } from './adapters/log.js';
 import { proxyConfigured } from './adapters/proxy-settings.js';
 import { Application, StartupError, type ApplicationOptions, type Handler } from './app/application.js';
 import type { DailySummaryJob } from './app/daily-summary.js';
@@ -28,6 +28,7 @@ import type { SlackDeps, SlackRuntime } from './adapters/slack/index.js';
 import { openBackend } from './adapters/storage/open.js';
 import { describeConfigProblems, loadConfig, readEnvironment, surfaceOf, type Config } from './config.js';
 import { MAX_FILE_BYTES } from './commands/measurement-file.js';
+import { usesLotRecords } from './commands/registry.js';
 import { renderJson } from './render/json.js';
 import { renderText } from './render/text.js';
 
@@ -143,12 +144,13 @@ async function backup(target: string | undefined, io: MainIo): Promise<number> {
 export async function openApplication(
   config: Config,
   stderr: NodeJS.WritableStream,
-  options: ApplicationOptions & { backend?: StorageBackend } = {},
+  options: ApplicationOptions & { backend?: StorageBackend; withoutLots?: boolean } = {},
 ): Promise<Application | undefined> {
   let backend: StorageBackend | undefined;
   try {
     backend = options.backend ?? (await openBackend(config.storage, options.now ? { now: options.now } : {}));
-    return await Application.open(backend, { lots: config.lots, ...options });
+    const { withoutLots, backend: _given, ...rest } = options;
+    return await Application.open(backend, { ...(withoutLots ? {} : { lots: config.lots }), ...rest });
   } catch (e) {
     if (!options.backend) await backend?.close().catch(() => undefined);
     if (e instanceof StorageError || e instanceof StartupError) {
@@ -219,7 +221,8 @@ async function oneShot(
   io: MainIo,
   extra: { attachment?: { name: string; text: string }; pngPath?: string } = {},
 ): Promise<number> {
-  const app = await openApplication(config, io.stderr);
+  // The lot records (spec file, demo history) open only for a lot command: a conversion does not wait for them.
+  const app = await openApplication(config, io.stderr, { withoutLots: !usesLotRecords(text) });
   if (!app) return EX_CONFIG;
   try {
     const asked = await app.ask({ text, surface: 'cli', caller: localOperator(io.env, 'cli'), ...(extra.attachment ? { attachment: extra.attachment } : {}) });
@@ -328,6 +331,8 @@ export async function serve(config: Config, deps: ServeDeps): Promise<number> {
   ].filter(
     (s): s is string => s !== undefined && s !== '',
   );
+  // pino loads with a service only.
+  const { createLogger } = await import('./adapters/log.js');
   const logger = deps.logger ?? createLogger({ sink: (line) => deps.io.stderr.write(line + '\n'), level: config.base.logLevel, secrets, format: config.base.logFormat ?? ((deps.io.stderr as { isTTY?: boolean }).isTTY ? 'text' : 'json') });
   // Metrics for every surface's /metrics; the gauges read the database at scrape time.
   let built: Application | undefined;

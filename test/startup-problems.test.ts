@@ -127,6 +127,17 @@ describe('a bad SPEC_FILE', () => {
     expectClear(r, 'SPEC_FILE', /line 5, column 12 products\.HX-200P\.model: unknown model "astm-f732"; for boron use one of: f723, masetti-1983/);
   }, 30_000);
 
+  it('stops a lot command, not a conversion: the one-shot CLI opens the lot records only for lot commands', async () => {
+    const specs = join(tmp, 'broken.yaml');
+    writeFileSync(specs, 'products:\n  HX-200P:\n    type: q\n');
+    const lot = await cli({ DATABASE_PATH: join(tmp, 'broken.db'), SPEC_FILE: specs }, 'lot LOT-A17');
+    expect(lot.code, lot.stderr).toBe(78);
+    expect(lot.stderr).toMatch(/SPEC_FILE/);
+    const rho = await cli({ DATABASE_PATH: join(tmp, 'broken.db'), SPEC_FILE: specs }, '--json', 'rho 8.2 ohm-cm p');
+    expect(rho.code, rho.stderr).toBe(0);
+    expect(JSON.parse(rho.stdout).command).toBe('rho');
+  }, 30_000);
+
   it('a model that does not cover the dopant is refused too', async () => {
     const specs = join(tmp, 'model-dopant.yaml');
     writeFileSync(specs, 'products:\n  HX-9P:\n    type: p\n    dopant: boron\n    model: f723-phosphorus-for-as-sb\n    resistivityOhmCm: { min: 8, max: 12 }\n');

@@ -48,6 +48,19 @@ export const COMMANDS: readonly CommandSpec<any>[] = [
   helpCommandFor(() => COMMANDS),
 ];
 
+/** The commands that read or write lot records. */
+const LOT_COMMANDS: ReadonlySet<CommandSpec<any>> = new Set([recordCommand, lotCommand, flagsCommand, clearCommand, digestCommand, trendCommand]);
+
+/**
+ * Whether a question starts with a lot command (by verb or alias). The one-shot CLI opens the
+ * lot records (spec file, demo history) only then: a conversion never waits for them.
+ */
+export function usesLotRecords(text: string): boolean {
+  const first = text.trim().split(/\s+/, 1)[0] ?? '';
+  const spec = findCommand(first);
+  return spec !== undefined && LOT_COMMANDS.has(spec);
+}
+
 export function findCommand(verb: string): CommandSpec<any> | undefined {
   const v = verb.toLowerCase();
   return COMMANDS.find((c) => c.verb === v || c.aliases?.some((a) => a.toLowerCase() === v));

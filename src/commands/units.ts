@@ -6,14 +6,19 @@
  * mΩ·cm, Ω·m, ohm/sq, Ω/□, K, °C, degC, C (where a temperature is expected), µm, um, mm, mV, V,
  * mA, µA, cm^-3, cm-3, /cm3, cm⁻³, cm3/C, %/K; numbers 1.5e15, 1.5x10^15, 1.5×10¹⁵.
  */
-import { create, unitDependencies, type Unit } from 'mathjs';
+import { createRequire } from 'node:module';
+import type { Unit } from 'mathjs';
 import { MATHJS_PREFIXES, MATHJS_UNIT_NAMES } from './unit-words.js';
 
-// Only the unit machinery of mathjs (not its whole expression library), made on first use: a
-// one-shot answer whose units are all common ones (below) never builds it.
-let unitFactory: ReturnType<typeof create>['unit'] | undefined;
+// Only the unit machinery of mathjs (not its whole expression library), loaded and made on first
+// use (required from node_modules, outside the bundle): an answer whose units are common ones
+// (below) or that no word of could be a unit (mayBeOurUnit) never loads mathjs at all.
+let unitFactory: ((...a: unknown[]) => Unit) | undefined;
 function mathUnit(value: number | string, unit?: string): Unit {
-  unitFactory ??= create({ unitDependencies: unitDependencies! }).unit;
+  if (!unitFactory) {
+    const { create, unitDependencies } = createRequire(import.meta.url)('mathjs') as typeof import('mathjs');
+    unitFactory = create({ unitDependencies: unitDependencies! }).unit as unknown as (...a: unknown[]) => Unit;
+  }
   const make = unitFactory as (...a: unknown[]) => Unit;
   return unit === undefined ? make(value) : make(value, unit);
 }

@@ -7,11 +7,9 @@
 import { randomUUID } from 'node:crypto';
 import type { LotsConfig } from './config.js';
 import { corePhysics } from './core-physics.js';
-import { seedDemoHistory } from './demo.js';
 import type { LotPhysics } from './physics.js';
 import type { LotRepository } from './repository.js';
 import { LotService } from './service.js';
-import { describeSpecProblems, loadSpecFile } from './spec/load.js';
 import type { SpecCatalog } from './spec/schema.js';
 import type { Clock } from './time.js';
 
@@ -34,14 +32,10 @@ export interface LotsOptions {
   readonly demoHistory?: boolean;
 }
 
-/** The spec file, checked; a bad one is the message to stop start-up with. */
-export function loadLotSpecs(config: LotsConfig): { ok: true; catalog: SpecCatalog } | { ok: false; message: string } {
-  const load = loadSpecFile(config.specFile, { demo: config.demoSpecs });
-  if (!load.ok) return { ok: false, message: `${describeSpecProblems(load)}\nFix the file (see docs/lots.md, "The spec file") or point SPEC_FILE at the right one.` };
-  return { ok: true, catalog: load.catalog };
-}
-
 export async function startLots(repo: LotRepository, config: LotsConfig, options: LotsOptions = {}): Promise<LotsStart> {
+  // The YAML reader and the demo history load with the lot records, not with every start.
+  const { loadLotSpecs } = await import('./spec/load.js');
+  const { seedDemoHistory } = await import('./demo.js');
   const specs = loadLotSpecs(config);
   if (!specs.ok) return specs;
   const catalog = specs.catalog;

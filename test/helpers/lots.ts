@@ -12,7 +12,8 @@ import { seedDemoHistory } from '../../src/lots/demo.js';
 import { lotIdRule } from '../../src/lots/ids.js';
 import { NO_CHAT_WRITERS, type Permissions } from '../../src/lots/permissions.js';
 import type { LotRepository } from '../../src/lots/repository.js';
-import { loadLotSpecs, type LotsRuntime } from '../../src/lots/runtime.js';
+import type { LotsRuntime } from '../../src/lots/runtime.js';
+import { loadLotSpecs } from '../../src/lots/spec/load.js';
 import { LotService } from '../../src/lots/service.js';
 
 /** A repository whose every method first waits for `ready`. */

@@ -12,6 +12,7 @@ import { readFileSync } from 'node:fs';
 import { basename } from 'node:path';
 import { LineCounter, isMap, isPair, isScalar, isSeq, parseDocument, type Node } from 'yaml';
 import { catalogFrom, SpecFile, type SpecCatalog } from './schema.js';
+import type { LotsConfig } from '../config.js';
 
 export interface SpecFileProblem {
   readonly line?: number;
@@ -151,4 +152,11 @@ function nodeAt(root: unknown, path: readonly (string | number)[], atKey = false
     found = node ?? found;
   }
   return found;
+}
+
+/** The spec file, checked; a bad one is the message to stop start-up with. */
+export function loadLotSpecs(config: LotsConfig): { ok: true; catalog: SpecCatalog } | { ok: false; message: string } {
+  const load = loadSpecFile(config.specFile, { demo: config.demoSpecs });
+  if (!load.ok) return { ok: false, message: `${describeSpecProblems(load)}\nFix the file (see docs/lots.md, "The spec file") or point SPEC_FILE at the right one.` };
+  return { ok: true, catalog: load.catalog };
 }
