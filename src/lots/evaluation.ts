@@ -185,14 +185,9 @@ function mapDraft(
   specRef: Partial<ReadingEvaluation>,
 ): DraftResult {
   const summary = mapSummary(m);
-  const wafer = request.wafer;
-  if (!summary || wafer === undefined) {
+  if (!summary || request.wafer === undefined) {
     return { ok: false, error: { code: 'invalid_request', issues: [{ path: 'primary.sites', message: 'the map has no site with a resistivity inside the edge exclusion' }] } };
   }
-  const notes: LotNote[] = [];
-  const checks: Check[] = [];
-  const findings: FlagFinding[] = [];
-  const rho = atSpecTemperature(summary.meanOhmCm, request.temperatureK, product, physics, notes);
   let measuredSum = 0;
   let measuredCount = 0;
   for (const s of m.sites) {
@@ -201,48 +196,17 @@ function mapDraft(
       measuredCount++;
     }
   }
-  let density: number | undefined;
-  let model: ModelRef | undefined;
-  if (product) {
-    const where = { scope: placeScope(wafer, undefined), wafer };
-    const conv = conversionCheck(rho, product, physics, where);
-    density = conv.density;
-    model = conv.model;
-    const win = productWindowCheck(product, rho, density, where, 'map_mean');
-    const uni = uniformityChecks(product, wafer, summary);
-    const spread = spreadChecks(product, request, rho, currentPoints);
-    checks.push(...conv.checks, ...win.checks, ...uni.checks, ...spread.checks);
-    findings.push(...conv.findings, ...win.findings, ...uni.findings, ...spread.findings);
-    notes.push(...conv.notes, ...win.notes);
-  }
-  const verdict = verdictOf(findings, checks);
-  return {
-    ok: true,
-    value: {
-      wafer,
-      quantity: m.measured,
-      asEntered: m.asEntered,
-      value: measuredSum / measuredCount,
-      unit: m.measured === 'sheet' ? 'Ω/□' : 'Ω·cm',
-      ...(m.thicknessCm !== undefined ? { thicknessCm: m.thicknessCm } : {}),
-      ...(m.spacingCm !== undefined ? { spacingCm: m.spacingCm } : {}),
-      resistivityOhmCm: rho,
-      ...(density !== undefined ? { dopantDensityPerCm3: density } : {}),
-      ...(request.temperatureK !== undefined ? { temperatureK: request.temperatureK } : {}),
-      ...(request.note !== undefined ? { note: request.note } : {}),
-      verdict,
-      evaluation: {
-        ...specRef,
-        ...(product ? { dopant: product.dopant } : {}),
-        ...(model ? { model } : {}),
-        checks,
-        notes,
-        findings,
-        verdict,
-        map: summary,
-      },
-    },
+  const measured: Measured = {
+    quantity: m.measured,
+    asEntered: m.asEntered,
+    value: measuredSum / measuredCount,
+    ...(m.thicknessCm !== undefined ? { thicknessCm: m.thicknessCm } : {}),
+    ...(m.spacingCm !== undefined ? { spacingCm: m.spacingCm } : {}),
+    resistivityOhmCm: summary.meanOhmCm,
+    notes: [],
+    map: summary,
   };
+  return { ok: true, value: resistivityDraft(measured, request, product, physics, currentPoints, specRef) };
 }
 
 function primaryDraft(
@@ -254,28 +218,66 @@ function primaryDraft(
   specRef: Partial<ReadingEvaluation>,
   fabProbeSpacingCm?: number,
 ): DraftResult {
+  if (m.kind === 'resistivity') {
+    const measured: Measured = { quantity: 'resistivity', asEntered: m.asEntered, value: m.resistivityOhmCm, resistivityOhmCm: m.resistivityOhmCm, notes: [] };
+    return { ok: true, value: resistivityDraft(measured, request, product, physics, currentPoints, specRef) };
+  }
   const notes: LotNote[] = [];
+  // The spacing typed, else the product's head, else the fab's head (PROBE_SPACING_MM).
+  const productSpacing = product?.probeSpacingMm !== undefined ? product.probeSpacingMm / 10 : undefined;
+  const spacing = m.spacingCm ?? productSpacing ?? fabProbeSpacingCm;
+  if (m.spacingCm === undefined && spacing !== undefined) {
+    notes.push({ code: 'assumption', assumption: `Probe spacing ${spacing * 10} mm from ${productSpacing !== undefined ? `the ${product!.id} spec (probeSpacingMm)` : 'the fab’s configured head (PROBE_SPACING_MM)'}.` });
+  }
+  const sheet = physics.resistivityFromSheet(m.sheetResistanceOhmPerSq, m.thicknessCm, spacing);
+  if (!sheet.ok) return { ok: false, error: { code: 'measurement_refused', what: 'sheet', refusal: sheet.refusal } };
+  for (const p of sheet.problems) notes.push({ code: 'problem', problem: p });
+  for (const a of sheet.assumptionCodes) notes.push({ code: 'assumption', assumption: a });
+  const measured: Measured = {
+    quantity: 'sheet',
+    asEntered: m.asEntered,
+    value: m.sheetResistanceOhmPerSq,
+    thicknessCm: m.thicknessCm,
+    ...(m.spacingCm !== undefined ? { spacingCm: m.spacingCm } : {}),
+    resistivityOhmCm: sheet.resistivityOhmCm,
+    notes,
+  };
+  return { ok: true, value: resistivityDraft(measured, request, product, physics, currentPoints, specRef) };
+}
+
+/** What a resistivity-like reading measured, before the checks. */
+interface Measured {
+  readonly quantity: 'resistivity' | 'sheet';
+  readonly asEntered: string;
+  /** As measured: Ω·cm or Ω/□ (a map: the mean of its sites). */
+  readonly value: number;
+  readonly thicknessCm?: number;
+  readonly spacingCm?: number;
+  /** Resistivity at the measured temperature. */
+  readonly resistivityOhmCm: number;
+  /** Notes from getting the resistivity (probe head, thickness factor). */
+  readonly notes: LotNote[];
+  readonly map?: MapSummary;
+}
+
+/**
+ * The checks every resistivity reading takes — to 23 °C, the ρ → N conversion and its validity,
+ * the window (a map's mean: the uniformity mean window when the product has one), a map's
+ * uniformity, the spread — and the draft that carries them.
+ */
+function resistivityDraft(
+  x: Measured,
+  request: RecordRequest,
+  product: Product | undefined,
+  physics: LotPhysics,
+  currentPoints: readonly PlaceValue[],
+  specRef: Partial<ReadingEvaluation>,
+): ReadingDraft {
+  const notes = [...x.notes];
   const checks: Check[] = [];
   const findings: FlagFinding[] = [];
-  let rho: number;
-  if (m.kind === 'sheet') {
-    // The spacing typed, else the product's head, else the fab's head (PROBE_SPACING_MM).
-    const productSpacing = product?.probeSpacingMm !== undefined ? product.probeSpacingMm / 10 : undefined;
-    const spacing = m.spacingCm ?? productSpacing ?? fabProbeSpacingCm;
-    if (m.spacingCm === undefined && spacing !== undefined) {
-      notes.push({ code: 'assumption', assumption: `Probe spacing ${spacing * 10} mm from ${productSpacing !== undefined ? `the ${product!.id} spec (probeSpacingMm)` : 'the fab’s configured head (PROBE_SPACING_MM)'}.` });
-    }
-    const sheet = physics.resistivityFromSheet(m.sheetResistanceOhmPerSq, m.thicknessCm, spacing);
-    if (!sheet.ok) return { ok: false, error: { code: 'measurement_refused', what: 'sheet', refusal: sheet.refusal } };
-    rho = sheet.resistivityOhmCm;
-    for (const p of sheet.problems) notes.push({ code: 'problem', problem: p });
-    for (const a of sheet.assumptionCodes) notes.push({ code: 'assumption', assumption: a });
-  } else {
-    rho = m.resistivityOhmCm;
-  }
   const place = { ...(request.wafer !== undefined ? { wafer: request.wafer } : {}), ...(request.site !== undefined ? { site: request.site } : {}) };
-  rho = atSpecTemperature(rho, request.temperatureK, product, physics, notes);
-
+  const rho = atSpecTemperature(x.resistivityOhmCm, request.temperatureK, product, physics, notes);
   let density: number | undefined;
   let model: ModelRef | undefined;
   if (product) {
@@ -283,39 +285,36 @@ function primaryDraft(
     const conv = conversionCheck(rho, product, physics, where);
     density = conv.density;
     model = conv.model;
-    const win = productWindowCheck(product, rho, density, where);
+    const win = productWindowCheck(product, rho, density, where, x.map ? 'map_mean' : undefined);
+    const uni = x.map && request.wafer !== undefined ? uniformityChecks(product, request.wafer, x.map) : { checks: [], findings: [] };
     const spread = spreadChecks(product, request, rho, currentPoints);
-    checks.push(...conv.checks, ...win.checks, ...spread.checks);
-    findings.push(...conv.findings, ...win.findings, ...spread.findings);
+    checks.push(...conv.checks, ...win.checks, ...uni.checks, ...spread.checks);
+    findings.push(...conv.findings, ...win.findings, ...uni.findings, ...spread.findings);
     notes.push(...conv.notes, ...win.notes);
   }
-
-
   const verdict = verdictOf(findings, checks);
   return {
-    ok: true,
-    value: {
-      ...place,
-      quantity: m.kind,
-      asEntered: m.asEntered,
-      value: m.kind === 'sheet' ? m.sheetResistanceOhmPerSq : m.resistivityOhmCm,
-      unit: m.kind === 'sheet' ? 'Ω/□' : 'Ω·cm',
-      ...(m.kind === 'sheet' ? { thicknessCm: m.thicknessCm } : {}),
-      ...(m.kind === 'sheet' && m.spacingCm !== undefined ? { spacingCm: m.spacingCm } : {}),
-      resistivityOhmCm: rho,
-      ...(density !== undefined ? { dopantDensityPerCm3: density } : {}),
-      ...(request.temperatureK !== undefined ? { temperatureK: request.temperatureK } : {}),
-      ...(request.note !== undefined ? { note: request.note } : {}),
+    ...place,
+    quantity: x.quantity,
+    asEntered: x.asEntered,
+    value: x.value,
+    unit: x.quantity === 'sheet' ? 'Ω/□' : 'Ω·cm',
+    ...(x.thicknessCm !== undefined ? { thicknessCm: x.thicknessCm } : {}),
+    ...(x.spacingCm !== undefined ? { spacingCm: x.spacingCm } : {}),
+    resistivityOhmCm: rho,
+    ...(density !== undefined ? { dopantDensityPerCm3: density } : {}),
+    ...(request.temperatureK !== undefined ? { temperatureK: request.temperatureK } : {}),
+    ...(request.note !== undefined ? { note: request.note } : {}),
+    verdict,
+    evaluation: {
+      ...specRef,
+      ...(product ? { dopant: product.dopant } : {}),
+      ...(model ? { model } : {}),
+      checks,
+      notes,
+      findings,
       verdict,
-      evaluation: {
-        ...specRef,
-        ...(product ? { dopant: product.dopant } : {}),
-        ...(model ? { model } : {}),
-        checks,
-        notes,
-        findings,
-        verdict,
-      },
+      ...(x.map ? { map: x.map } : {}),
     },
   };
 }
