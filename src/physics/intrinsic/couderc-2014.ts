@@ -24,7 +24,7 @@
  * validity 50–400 K is the paper's as quoted by one of them. At 300 K it gives 9.69e9 cm⁻³,
  * 0.4 % above Altermatt's 9.65e9; against Misiakos and Tsamakis's measured points (78–340 K)
  * it stays within 5 meV of band-gap equivalent (tests). Above 400 K the same form is an
- * extrapolation and the reply says so; up to 700 K it stays within 3.3 % of Wasserab's 1977
+ * extrapolation and the reply says so; from 350 to 700 K it stays within 3.2 % of Wasserab's 1977
  * wide-range evaluation (test), the only published value above 400 K we could check against.
  */
 import { BOLTZMANN_EV_PER_K } from '../constants.js';
