@@ -14,6 +14,9 @@ import type { HandleContext } from './context.js';
 import { analyseMap, type ShownQuantity } from './map-analysis.js';
 import { MeasurementFileError, readMeasurementFile, type MeasurementFile } from './measurement-file.js';
 import { defineCommand } from './spec.js';
+import { lotsOf, NOT_SET_UP, takeLotId, takeWafer } from './lots/parse.js';
+import { countValue, lotErrorReply } from './lots/wording.js';
+import type { Reply } from '../reply/reply.js';
 
 export const MapOptionsSchema = z.object({
   thicknessCm: z.number().finite().optional(),
@@ -25,11 +28,15 @@ export const MapOptionsSchema = z.object({
   modelId: z.string().optional(),
   show: z.enum(['rs', 'rho', 'density', 'thickness']).optional(),
   valueUnit: z.string().optional(),
+  /** `map <lot> w<n>`: draw the wafer's recorded map (no file). */
+  lotId: z.string().optional(),
+  wafer: z.number().int().optional(),
   asTyped: z.record(z.string(), z.string()),
 });
 export type MapOptionsRequest = z.infer<typeof MapOptionsSchema>;
 
-export const MAP_USAGE = 'map [thick <t>] [p|n|dopant] [diam <d>] [edge <mm>] [spacing <s>] [show rs|rho|density] [unit <u>] — with the measurement file attached';
+export const MAP_USAGE =
+  'map [thick <t>] [p|n|dopant] [diam <d>] [edge <mm>] [spacing <s>] [show rs|rho|density] [unit <u>] — with the measurement file attached   ·   map <lot> w<n> [show rs|rho|density] — a recorded map';
 export const MAP_EXAMPLE = 'map thick 525um p diam 200mm edge 5mm';
 const NO_FILE =
   'A map needs its measurement file: attach the CSV to the message (Slack: to the message that mentions me, or in a DM), or on the command line give --file wafer.csv. The layout is in docs/measurement-files.md.';
@@ -115,14 +122,20 @@ export const mapCommand = defineCommand<MapOptionsRequest>({
       'spacing <s>: probe pin spacing for the thickness factor (default: the fab\'s configured head)',
       'show rs | rho | density: the quantity coloured and summarised (default: what was measured)',
       'unit <u>: the unit of a "value" column whose header has none (unit ohm/sq)',
+      '<lot> w<n> (no file): the map recorded for that wafer with "record <lot> w<n> map", drawn again from its stored sites',
     ],
     seeAlso: ['record', 'trend', 'sheet'],
   },
   schema: MapOptionsSchema,
   parse(args) {
-    return readMapOptions(args);
+    // "map LOT-A17 w6": a recorded map, drawn again from its stored sites.
+    const wafer = takeWafer(args);
+    const lotId = wafer !== undefined ? takeLotId(args, 'map LOT-A17 w6') : undefined;
+    const options = readMapOptions(args);
+    return { ...options, ...(lotId !== undefined && wafer !== undefined ? { lotId, wafer } : {}) };
   },
   async run(req, ctx) {
+    if (req.lotId !== undefined && req.wafer !== undefined && !ctx.attachment) return recordedMap(req, req.lotId, req.wafer, ctx);
     let file;
     let analysis;
     const spacingCm = req.spacingCm ?? ctx.probeSpacingCm;
@@ -163,3 +176,77 @@ export const mapCommand = defineCommand<MapOptionsRequest>({
     });
   },
 });
+
+/**
+ * `map <lot> w<n>`: the wafer's latest recorded map, drawn again from the sites stored with it,
+ * with the thickness, probe spacing, diameter and edge exclusion it was recorded with and the
+ * lot's product for the dopant. The values are as measured (the record corrected only its mean
+ * to 23 °C).
+ */
+async function recordedMap(req: MapOptionsRequest, lotIdText: string, wafer: number, ctx: HandleContext): Promise<Reply> {
+  const lots = lotsOf(ctx);
+  if (!lots) return errorReply('lots_unavailable', NOT_SET_UP);
+  const found = await lots.storedMap(lotIdText, wafer);
+  if (!found.ok) return lotErrorReply(found.error, { usage: MAP_USAGE, example: `map ${lotIdText} w${wafer}` });
+  const { lotId, reading, sites, product } = found.value;
+  const summary = reading.evaluation.map!;
+  const n = sites.length;
+  const file: MeasurementFile = {
+    name: summary.fileName,
+    delimiter: ',',
+    decimalComma: false,
+    quantity: summary.measured === 'sheet' ? 'sheetResistance' : 'resistivity',
+    columnsAsWritten: [summary.measured === 'sheet' ? 'Rs (Ω/□)' : 'ρ (Ω·cm)'],
+    xMm: Float64Array.from(sites, (s) => s.xMm),
+    yMm: Float64Array.from(sites, (s) => s.yMm),
+    values: Float64Array.from(sites, (s) => s.value ?? Number.NaN),
+    lines: Uint32Array.from({ length: n }, (_, i) => i + 1),
+    siteNames: sites.map((s, i) => s.label || String(i + 1)),
+    emptyLines: sites.flatMap((s, i) => (s.value === null ? [i + 1] : [])),
+  };
+  let analysis;
+  try {
+    analysis = analyseMap(file, {
+      ...(reading.thicknessCm !== undefined ? { thicknessCm: reading.thicknessCm } : {}),
+      ...(reading.spacingCm !== undefined ? { spacingCm: reading.spacingCm } : {}),
+      ...(product ? { dopant: product.dopant, ...(product.model ? { modelId: product.model } : {}) } : {}),
+      diameterMm: summary.diameterMm,
+      edgeExclusionMm: summary.edgeExclusionMm,
+      show: req.show ?? 'rho',
+      lotId,
+      waferLabel: `W${String(wafer).padStart(2, '0')}`,
+    });
+  } catch (e) {
+    if (e instanceof ArgError) return errorReply(e.code, e.message, { usage: MAP_USAGE, example: `map ${lotId} w${wafer}` });
+    throw e;
+  }
+  const s = analysis.statistics;
+  const who = reading.actor.userName ?? reading.actor.userId;
+  return okReply(identity(ctx), {
+    command: 'map',
+    title: `Recorded map ${lotId} w${wafer} (#${reading.id}): non-uniformity ${formatNumber(s.nonUniformityPercent, { sigFigs: 3 })} % (1σ), mean ${formatNumber(s.mean, { sigFigs: 4 })} ${analysis.unit}`,
+    values: [...analysis.values, countValue('readingId', reading.id, 'Reading number')],
+    inputs: {
+      lot: { value: lotId, label: 'Lot' },
+      wafer: { value: `w${wafer}`, label: 'Wafer' },
+      file: { value: summary.fileName, label: 'Recorded from', asTyped: `${summary.fileName} (${n} sites)` },
+    },
+    assumptions: [
+      `The map recorded as reading #${reading.id} on ${reading.recordedAt.slice(0, 16).replace('T', ' ')} UTC by ${who}, drawn from its ${n} stored sites with the thickness, probe spacing, diameter and edge exclusion it was recorded with.`,
+      ...(reading.temperatureK !== undefined ? [`Values as measured at ${formatNumber(reading.temperatureK - 273.15, { sigFigs: 3 })} °C; the record corrected only the mean to 23 °C (${formatNumber(reading.resistivityOhmCm!, { sigFigs: 4 })} Ω·cm).`] : []),
+      ...analysis.assumptions,
+    ],
+    warnings: analysis.warnings,
+    sections: analysis.sections,
+    picture: analysis.picture,
+    derivation: {
+      equations: analysis.equations,
+      parameters: [
+        { name: 'edge exclusion', value: analysis.edgeExclusionMm, unit: 'mm' },
+        { name: 'wafer diameter', value: analysis.diameterMm, unit: 'mm' },
+      ],
+      steps: [`Read ${n} stored sites of reading #${reading.id}`, ...analysis.steps],
+      sources: analysis.sources,
+    },
+  });
+}

@@ -14,6 +14,7 @@ export type LotError =
   | { readonly code: 'measurement_refused'; readonly what: 'sheet' | 'type'; readonly refusal: Refusal }
   | { readonly code: 'not_permitted'; readonly action: 'record' | 'clear'; readonly userId: string; readonly channelId: string }
   | { readonly code: 'unknown_lot'; readonly lotId: string }
+  | { readonly code: 'no_map'; readonly lotId: string; readonly wafer: number; readonly wafersWithMaps: readonly number[] }
   | { readonly code: 'no_such_flag'; readonly lotId: string; readonly what: string; readonly open: readonly { id: number; code: string; scope: string }[] }
   | { readonly code: 'ambiguous_flag'; readonly lotId: string; readonly what: string; readonly candidates: readonly { id: number; code: string; scope: string }[] }
   | { readonly code: 'flag_already_cleared'; readonly flagId: number; readonly at: string; readonly by: string }

@@ -12,7 +12,7 @@ import { lotView, type LotView } from './lot-view.js';
 import { mayWrite, type LotAction, type Permissions } from './permissions.js';
 import type { LotPhysics } from './physics.js';
 import { planClear, planRecord } from './plan.js';
-import { RecordRequest, type Actor, type StoredReading } from './readings.js';
+import { RecordRequest, type Actor, type MapSite, type StoredReading } from './readings.js';
 import type { ClearOutcome, FlagWithProduct, LotRepository, RecordOutcome } from './repository.js';
 import type { Product, SpecCatalog } from './spec/schema.js';
 import { localDate, recentSlots, startOfLocalDay, type Clock } from './time.js';
@@ -138,6 +138,24 @@ export class LotService {
     const history = await this.deps.repo.getLot(lotId);
     if (!history) return { ok: false, error: { code: 'unknown_lot', lotId } };
     return { ok: true, value: lotView(history, this.deps.specs()) };
+  }
+
+  /**
+   * The latest current map reading of a wafer and its stored sites, with the lot's product (for
+   * its dopant and model), to draw the map again.
+   */
+  async storedMap(lotIdText: string, wafer: number): Promise<Result<{ lotId: string; reading: StoredReading; sites: MapSite[]; product?: Product }>> {
+    const lotId = normalizeLotId(lotIdText, this.deps.lotIds);
+    if (!lotId) return this.badLotId(lotIdText);
+    const history = await this.deps.repo.getLot(lotId);
+    if (!history) return { ok: false, error: { code: 'unknown_lot', lotId } };
+    const maps = history.readings.filter((r) => r.supersededBy === undefined && r.evaluation.map !== undefined);
+    const reading = maps.filter((r) => r.wafer === wafer).sort((a, b) => b.id - a.id)[0];
+    if (!reading) {
+      return { ok: false, error: { code: 'no_map', lotId, wafer, wafersWithMaps: [...new Set(maps.map((r) => r.wafer!))].sort((a, b) => a - b) } };
+    }
+    const product = history.lot.productId !== undefined ? this.deps.specs().find(history.lot.productId) : undefined;
+    return { ok: true, value: { lotId, reading, sites: await this.deps.repo.mapSites(reading.id), ...(product ? { product } : {}) } };
   }
 
   /**

@@ -153,6 +153,29 @@ describe('the record … map command', () => {
     expect(JSON.stringify(wafers)).toContain('49 (map #');
   });
 
+  it('draws a recorded map again from its stored sites: `map <lot> w<n>` with no file', async () => {
+    const ctx = testContext({ attachment: demoFile('LOT-A17-w06-rs.csv') });
+    const recorded = (await handle('record LOT-A17 w6 map thick 725um', ctx)) as ReplyOk;
+    expect(recorded.ok).toBe(true);
+    const again = (await handle('map LOT-A17 w6', { ...ctx, attachment: undefined })) as ReplyOk;
+    if (!again.ok) throw new Error(JSON.stringify(again));
+    const v = (reply: ReplyOk, key: string) => reply.values.find((x) => x.key === key)?.value;
+    expect(v(again, 'nonUniformityPercent')).toBeWithinRelative(v(recorded, 'nonUniformityPercent') as number, 1e-12);
+    expect(v(again, 'siteCount')).toBe(49);
+    expect(v(again, 'readingId')).toBe(v(recorded, 'readingId'));
+    expect((again.picture as WaferMapPicture).title).toContain('LOT-A17 W06');
+    // The same picture as the record's (same sites, same code); only the file's line numbers are
+    // not kept (the stored sites are numbered in file order).
+    const withoutLines = (p: WaferMapPicture) => ({ ...p, sites: { ...p.sites, line: [] } });
+    expect(withoutLines(again.picture as WaferMapPicture)).toEqual(withoutLines(recorded.picture as WaferMapPicture));
+    const none = await handle('map LOT-A17 w2', { ...ctx, attachment: undefined });
+    expect(none.ok).toBe(false);
+    if (!none.ok) {
+      expect(none.error.code).toBe('no_map');
+      expect(none.error.message).toMatch(/LOT-A17 w2 has no recorded map; maps are recorded for w6/);
+    }
+  });
+
   it('flags the demo wafer with the low edge ring as non-uniform (HX-200P limit 3 %)', async () => {
     const ctx = testContext({ attachment: demoFile('LOT-A17-w06-rs.csv') });
     const r = (await handle('record LOT-A17 w6 map thick 725um', ctx)) as ReplyOk;

@@ -226,6 +226,12 @@ export function lotErrorReply(e: LotError, usage: { usage: string; example: stri
       );
     case 'unknown_lot':
       return errorReply('unknown_lot', `No readings have been recorded for ${e.lotId} yet.`, usage);
+    case 'no_map':
+      return errorReply(
+        'no_map',
+        `${e.lotId} w${e.wafer} has no recorded map${e.wafersWithMaps.length ? `; maps are recorded for ${e.wafersWithMaps.map((w) => `w${w}`).join(', ')}` : ''}. Record one with "record ${e.lotId} w${e.wafer} map thick <t>" and the measurement file, or attach a file to "map".`,
+        usage,
+      );
     case 'no_such_flag':
       return errorReply(
         'no_such_flag',
