@@ -1,6 +1,6 @@
 /**
  * `clear <lot> <flag> because <reason>`: closes an open flag with a reason, kept in the history.
- * The flag is its number (F12), a kind (window, type, spread, model, spec) optionally with the
+ * The flag is its number (F12), a kind (window, type, spread, uniformity, model, spec) optionally with the
  * wafer/site, or `all`.
  */
 import { z } from 'zod';
@@ -16,7 +16,7 @@ import { countValue, flagLine, lotErrorReply } from './wording.js';
 export const ClearCommandRequest = ClearRequest;
 export type ClearCommandRequest = z.infer<typeof ClearCommandRequest>;
 
-const USAGE = 'clear <lot> <F<n>|window|type|spread|model|spec|all> [w<n>] [site <n>] because <reason>';
+const USAGE = 'clear <lot> <F<n>|window|type|spread|uniformity|model|spec|all> [w<n>] [site <n>] because <reason>';
 const EXAMPLE = 'clear LOT-A17 window because re-measured on the referee tool: 11.8 ohm-cm';
 
 const SELECTOR_WORDS: Readonly<Record<string, string>> = {
@@ -36,7 +36,7 @@ export const clearCommand = defineCommand<ClearCommandRequest>({
       'clear LOT-A17 all because lot scrapped per engineering disposition',
     ],
     options: [
-      'F<n>: the flag number shown by lot / flags; or its kind: window, type, spread, model, spec (with w<n> if there are several)',
+      'F<n>: the flag number shown by lot / flags; or its kind: window, type, spread, uniformity, model, spec (with w<n> if there are several)',
       'because <reason>: required; say what was checked or decided',
     ],
     seeAlso: ['lot', 'flags'],
@@ -62,7 +62,7 @@ export const clearCommand = defineCommand<ClearCommandRequest>({
         }
       }
     }
-    if (!selector) throw new ArgError('missing_flag', `Say which flag: its number (F12), its kind (window, type, spread, model, spec) or all, e.g. ${EXAMPLE}`);
+    if (!selector) throw new ArgError('missing_flag', `Say which flag: its number (F12), its kind (window, type, spread, uniformity, model, spec) or all, e.g. ${EXAMPLE}`);
     if (reason === undefined || reason.trim().length < 3) {
       throw new ArgError('missing_reason', `Say why, after "because": e.g. ${EXAMPLE}`);
     }
