@@ -184,6 +184,22 @@ describe('the record … map command', () => {
     expect(r.warnings.map((w) => w.code)).toContain('flag_uniformity_over_limit');
   });
 
+  it('a map far outside the window (a wrong thickness) asks to send the file again with confirm; nothing is stored', async () => {
+    const ctx = testContext({ attachment: demoFile('LOT-A17-w04-rs.csv') });
+    const before = await ctx.lots!.lot('LOT-A17');
+    const r = await handle('record LOT-A17 w4 map thick 72.5um', ctx);
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    expect(r.error.code).toBe('confirm_reading');
+    expect(r.error.message).toMatch(/send the file again with "record LOT-A17 w4 map thick 72.5um confirm"/);
+    expect(r.error.choices).toBeUndefined();
+    const after = await ctx.lots!.lot('LOT-A17');
+    if (before.ok && after.ok) expect(after.value.readings.length).toBe(before.value.readings.length);
+    const confirmed = (await handle('record LOT-A17 w4 map thick 72.5um confirm', ctx)) as ReplyOk;
+    expect(confirmed.ok).toBe(true);
+    expect(confirmed.title).toContain('outside window');
+  });
+
   it.each([
     ['record LOT-A17 w4 map thick 725um', undefined, 'missing_file', /attach the CSV/],
     ['record LOT-A17 w4 map', demoFile('LOT-A17-w04-rs.csv'), 'missing_thickness', /give the thickness/],

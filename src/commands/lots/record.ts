@@ -242,13 +242,19 @@ export const recordCommand = defineCommand<RecordCommandRequest>({
     if (!req.confirmed) {
       const far = await implausibleReading(lots, record, lots.confirmFactor);
       if (far) {
+        // A map's file cannot ride on an answer button: the person sends file and command again.
         return {
           ok: false,
-          error: {
-            code: 'confirm_reading',
-            message: implausibleQuestion(far),
-            choices: [{ label: 'Store it as typed', answer: 'confirm', command: `${req.commandText} confirm` }],
-          },
+          error: mapAnalysis
+            ? {
+                code: 'confirm_reading',
+                message: `The map's mean resistivity: ${implausibleQuestion(far).replace('answer `confirm`', `send the file again with "${req.commandText} confirm"`)} (Check the thickness first: a wrong thickness scales every site.)`,
+              }
+            : {
+                code: 'confirm_reading',
+                message: implausibleQuestion(far),
+                choices: [{ label: 'Store it as typed', answer: 'confirm', command: `${req.commandText} confirm` }],
+              },
         };
       }
     }
