@@ -134,9 +134,9 @@ export function createHttpApi(app: Application, keys: readonly ApiKey[], options
   };
 
   api.openapi(askRoute, async (c) => {
-    const { text } = c.req.valid('json');
+    const { text, file } = c.req.valid('json');
     const effectKey = effectKeyOf(c);
-    const asked = await app.ask({ text, surface: 'http', caller: callerOf(c), ...(effectKey ? { effectKey } : {}), log: options.log });
+    const asked = await app.ask({ text, surface: 'http', caller: callerOf(c), ...(effectKey ? { effectKey } : {}), ...(file ? { attachment: file } : {}), log: options.log });
     if (asked.duplicate) return apiError(c, 500, 'internal', 'unexpected duplicate') as never;
     await asked.settle();
     return c.json(toJson(asked.reply) as never, 200);

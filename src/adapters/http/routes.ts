@@ -5,6 +5,7 @@
 import { createRoute, z } from '@hono/zod-openapi';
 import { ConvertDensityRequest, ConvertError, ConvertResistivityRequest, ConvertResponse } from '../../app/convert.js';
 import { JsonReply } from '../../render/json-schema.js';
+import { MAX_FILE_BYTES } from '../../commands/measurement-file.js';
 
 export const ApiError = z.object({
   ok: z.literal(false),
@@ -22,7 +23,19 @@ const idempotencyHeader = z.object({
   'idempotency-key': z.string().min(1).max(200).optional().describe('the same key again returns the first outcome and stores nothing new'),
 });
 
-export const AskBody = z.object({ text: z.string().min(1).max(2000).describe('a shiftprobe command, e.g. "rho 8.2 ohm-cm p"') }).strict();
+export const AskBody = z
+  .object({
+    text: z.string().min(1).max(2000).describe('a shiftprobe command, e.g. "rho 8.2 ohm-cm p"'),
+    file: z
+      .object({
+        name: z.string().min(1).max(200).describe('the file name, as the replies name it'),
+        text: z.string().min(1).max(MAX_FILE_BYTES).describe('the measurement file (CSV) as text, layout in docs/measurement-files.md'),
+      })
+      .strict()
+      .optional()
+      .describe('a measurement file for `map` or `record <lot> w<n> map`, as the chat surfaces take an attached file'),
+  })
+  .strict();
 
 export const askRoute = createRoute({
   method: 'post',
@@ -30,6 +43,7 @@ export const askRoute = createRoute({
   summary: 'Ask in the command language; the reply is the JSON contract of `shiftprobe --json`',
   security,
   request: { headers: idempotencyHeader, body: { required: true, content: { 'application/json': { schema: AskBody, example: { text: 'rho 8.2 ohm-cm p' } } } } },
+  description: 'With `file`, a measurement file goes with the command (`map …`, `record <lot> w<n> map …`); the wafer map comes back as data in `picture`.',
   responses: {
     200: { description: 'A reply: ok:true with values, or ok:false with the error and the right form (bad input is a reply, not an HTTP error)', content: { 'application/json': { schema: JsonReply } } },
     ...errors,

@@ -4,6 +4,7 @@
  * Idempotency-Key, and the OpenAPI document generated from the request schemas.
  * Invented demo lots and clients (Harrowgate Fab 3).
  */
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { Secret } from '../../../src/adapters/secret.js';
 import { createHttpApi } from '../../../src/adapters/http/index.js';
@@ -179,6 +180,37 @@ describe('/v1/readings', () => {
     const bad = await post('/v1/readings', { lotId: 'LOT-A21', wafer: 99, primary: { kind: 'resistivity', resistivityOhmCm: 9.7 } });
     expect(((await bad.json()) as { error: { message: string } }).error.message).toMatch(/wafer/);
     expect(await app.lots!.repo.countReadings()).toBe(before);
+  });
+});
+
+describe('/v1/ask with a measurement file', () => {
+  const file = { name: 'LOT-A17-w04-rs.csv', text: readFileSync('examples/maps/LOT-A17-w04-rs.csv', 'utf8') };
+  it('map: the statistics and the picture data come back in the JSON contract', async () => {
+    const { post } = await api();
+    const res = await post('/v1/ask', { text: 'map thick 725um p', file });
+    const body = (await res.json()) as { ok: boolean; values: Record<string, { value: number }>; picture: { kind: string; sites: { xMm: number[] } } };
+    expect(JsonReply.safeParse(body).success).toBe(true);
+    expect(body.ok).toBe(true);
+    expect(body.values['siteCount']!.value).toBe(49);
+    expect(body.picture.kind).toBe('waferMap');
+    expect(body.picture.sites.xMm).toHaveLength(49);
+  });
+  it('record … map: stored once per Idempotency-Key, every site with it', async () => {
+    const { post, app } = await api();
+    const before = await app.lots!.repo.countReadings();
+    const ask = () => post('/v1/ask', { text: 'record LOT-A17 w4 map thick 725um', file }, { 'idempotency-key': 'mes-map-4' });
+    const first = (await (await ask()).json()) as { ok: boolean; values: Record<string, { value: number }> };
+    const again = (await (await ask()).json()) as { ok: boolean; values: Record<string, { value: number }> };
+    expect(first.ok).toBe(true);
+    expect(again.values['readingId']!.value).toBe(first.values['readingId']!.value);
+    expect(await app.lots!.repo.countReadings()).toBe(before + 1);
+    expect(await app.lots!.repo.mapSites(first.values['readingId']!.value)).toHaveLength(49);
+  });
+  it('a file field of the wrong shape is a 400 that names it', async () => {
+    const { post } = await api();
+    const res = await post('/v1/ask', { text: 'map', file: { name: 'w.csv' } });
+    expect(res.status).toBe(400);
+    expect(((await res.json()) as { error: { message: string } }).error.message).toMatch(/file\.text/);
   });
 });
 
