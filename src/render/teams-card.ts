@@ -115,6 +115,10 @@ function renderResult(reply: ReplyOk, options: TeamsCardOptions): AdaptiveCard {
   if (inputs.length > 0) smallPrint.push(small(`**Read as** ${escapeCardText(inputs.map(inputText).join(' · '))}`, { spacing: 'Medium' }));
   if (reply.assumptions.length > 0) smallPrint.push(small(`**Assumed** ${escapeCardText(reply.assumptions.join(' '))}`));
   if (reply.model) smallPrint.push(small(`**${escapeCardText(reply.model.name)}** — ${escapeCardText(reply.model.citation)}${reply.model.validity ? `. Valid for ${escapeCardText(reply.model.validity)}` : ''}`));
+  // A PNG does not fit a Teams message (the budget above): say where the picture is.
+  if (reply.picture) {
+    smallPrint.push(small(`The ${reply.picture.kind === 'waferMap' ? 'wafer map' : 'trend chart'} picture is not sent to Teams (a message holds about 28 KB): on Slack it comes under the card; on the command line \`--png <file>\` writes it.`));
+  }
 
   const bottom: CardElement[] = [];
   for (const c of reply.cautions) bottom.push(text(escapeCardText(c), { color: 'Warning', size: 'Small', spacing: 'Medium' }));

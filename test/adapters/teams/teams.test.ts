@@ -211,6 +211,14 @@ describe('cards', () => {
     }
   });
 
+  it('a reply with a picture says where the picture is (a PNG does not fit a Teams message); one without says nothing', async () => {
+    const trend = await handle('trend LOT-A17', testContext());
+    const card = JSON.stringify(renderTeamsCard(trend));
+    expect(card).toMatch(/trend chart picture is not sent to Teams/);
+    expect(checkCardLimits(renderTeamsCard(trend))).toEqual([]);
+    expect(JSON.stringify(renderTeamsCard(await handle('rho 8.2 ohm-cm p', testContext())))).not.toMatch(/picture/);
+  });
+
   it('Teams message text is read as typed: mentions and HTML removed', () => {
     expect(textFromTeams('<at>shiftprobe</at>&nbsp;rho 8.2 ohm&#39;s… <b>p</b>')).toBe("rho 8.2 ohm's… p");
   });
