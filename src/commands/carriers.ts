@@ -165,7 +165,7 @@ export const carriersCommand = defineCommand<CarriersRequest>({
           'p + Σ N_D⁺ = n + Σ N_A⁻ (charge neutrality)',
           'n = n_i·e^u, p = n_i·e^−u, u = (E_F − E_i)/kT',
           'N_D⁺ = N_D/(1 + g_D·e^((E_F − E_D)/kT)), N_A⁻ = N_A/(1 + g_A·e^((E_A − E_F)/kT))',
-          'E_c − E_i = Eg/2 + (kT/2)·ln(Nc/Nv)',
+          'E_c − E_i = kT·ln(Nc/n_i), E_i − E_v = kT·ln(Nv/n_i) (so n = Nc·e^−(E_c − E_F)/kT exactly; their sum is the gap the n_i model implies with Nc, Nv, within a few meV of Eg)',
           ...(r.resistivityOhmCm !== undefined ? ['ρ = 1/(q·(n·μn + p·μp))'] : []),
         ],
         parameters: [
