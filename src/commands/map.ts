@@ -11,7 +11,7 @@ import { ArgError } from './args.js';
 import { DopantSchema, identity, readDopant, readModelId } from './common.js';
 import type { Args } from './args.js';
 import type { HandleContext } from './context.js';
-import { analyseMap, type ShownQuantity } from './map-analysis.js';
+import { analyseMap, type MapAnalysis, type ShownQuantity } from './map-analysis.js';
 import { MeasurementFileError, readMeasurementFile, type MeasurementFile } from './measurement-file.js';
 import { defineCommand } from './spec.js';
 import { lotsOf, NOT_SET_UP, takeLotId, takeWafer } from './lots/parse.js';
@@ -156,26 +156,33 @@ export const mapCommand = defineCommand<MapOptionsRequest>({
       values: analysis.values,
       inputs: mapInputs(req, file.name, file.xMm.length, analysis.shown === 'thickness' ? undefined : spacingCm),
       assumptions: analysis.assumptions,
-      warnings: analysis.warnings,
-      sections: analysis.sections,
-      picture: analysis.picture,
-      derivation: {
-        equations: analysis.equations,
-        parameters: [
-          { name: 'edge exclusion', value: analysis.edgeExclusionMm, unit: 'mm' },
-          { name: 'wafer diameter', value: analysis.diameterMm, unit: 'mm' },
-          { name: 'Tukey fence factor k', value: 1.5, source: 'Tukey 1977' },
-        ],
-        steps: [
-          `Read ${file.xMm.length} sites from ${file.name} (${file.delimiter === ';' ? 'semicolons, decimal commas' : 'commas'})`,
-          ...analysis.steps,
-          `Statistics of ${analysis.quantityLabel.toLowerCase()} over ${s.count} sites inside ${analysis.edgeExclusionMm} mm of edge exclusion`,
-        ],
-        sources: analysis.sources,
-      },
+      ...analysisParts(analysis, `Read ${file.xMm.length} sites from ${file.name} (${file.delimiter === ';' ? 'semicolons, decimal commas' : 'commas'})`),
     });
   },
 });
+
+/** What a map reply carries from the analysis: warnings, sections, the picture and the derivation. */
+function analysisParts(analysis: MapAnalysis, readStep: string) {
+  return {
+    warnings: analysis.warnings,
+    sections: analysis.sections,
+    picture: analysis.picture,
+    derivation: {
+      equations: analysis.equations,
+      parameters: [
+        { name: 'edge exclusion', value: analysis.edgeExclusionMm, unit: 'mm' },
+        { name: 'wafer diameter', value: analysis.diameterMm, unit: 'mm' },
+        { name: 'Tukey fence factor k', value: 1.5, source: 'Tukey 1977' },
+      ],
+      steps: [
+        readStep,
+        ...analysis.steps,
+        `Statistics of ${analysis.quantityLabel.toLowerCase()} over ${analysis.statistics.count} sites inside ${analysis.edgeExclusionMm} mm of edge exclusion`,
+      ],
+      sources: analysis.sources,
+    },
+  };
+}
 
 /**
  * `map <lot> w<n>`: the wafer's latest recorded map, drawn again from the sites stored with it,
@@ -236,17 +243,6 @@ async function recordedMap(req: MapOptionsRequest, lotIdText: string, wafer: num
       ...(reading.temperatureK !== undefined ? [`Values as measured at ${formatNumber(reading.temperatureK - 273.15, { sigFigs: 3 })} °C; the record corrected only the mean to 23 °C (${formatNumber(reading.resistivityOhmCm!, { sigFigs: 4 })} Ω·cm).`] : []),
       ...analysis.assumptions,
     ],
-    warnings: analysis.warnings,
-    sections: analysis.sections,
-    picture: analysis.picture,
-    derivation: {
-      equations: analysis.equations,
-      parameters: [
-        { name: 'edge exclusion', value: analysis.edgeExclusionMm, unit: 'mm' },
-        { name: 'wafer diameter', value: analysis.diameterMm, unit: 'mm' },
-      ],
-      steps: [`Read ${n} stored sites of reading #${reading.id}`, ...analysis.steps],
-      sources: analysis.sources,
-    },
+    ...analysisParts(analysis, `Read ${n} stored sites of reading #${reading.id}`),
   });
 }
