@@ -14,7 +14,10 @@ import { renderText } from '../src/render/text.js';
 // The same in-memory demo lot store (invented Harrowgate Fab 3 specs and history) the command tests use.
 import { demoLots } from '../test/helpers/lots.js';
 
-const EXAMPLES: readonly { heading: string; commands: readonly string[]; json?: boolean }[] = [
+/** A command, or a command with a measurement file from examples/maps/ (`--file` on the command line). */
+type Example = string | { readonly text: string; readonly file: string };
+
+const EXAMPLES: readonly { heading: string; commands: readonly Example[]; json?: boolean }[] = [
   { heading: 'Resistivity → dopant density (`rho`)', commands: ['rho 8.2 ohm-cm p', 'rho 0.012 Ω·cm arsenic'] },
   { heading: 'Dopant density → resistivity (`doping`)', commands: ['doping 3.1x10^16 cm^-3 phos'] },
   { heading: 'Four-point probe (`sheet`)', commands: ['sheet 4.1mV 1mA thick 725um spacing 1mm diam 200mm p', 'sheet 45 ohm/sq thick 525um n'] },
@@ -35,6 +38,14 @@ const EXAMPLES: readonly { heading: string; commands: readonly string[]; json?: 
       'flags',
       'clear LOT-B204 type w5 because repeat hot probe and SPV both read n-type; tip was contaminated',
       'digest',
+    ],
+  },
+  {
+    heading: 'Wafer maps (`map`, `record … map`) — invented demo files in examples/maps/',
+    commands: [
+      { text: 'map thick 525um p', file: 'LOT-A17-w03-rs.csv' },
+      { text: 'record LOT-A17 w6 map thick 725um', file: 'LOT-A17-w06-rs.csv' },
+      'map LOT-A17 w6 show rs',
     ],
   },
   { heading: 'The derivation of a result (`why`)', commands: ['why r-000001'] },
@@ -74,8 +85,10 @@ async function main(): Promise<void> {
   for (const group of EXAMPLES) {
     out.push(`## ${group.heading}`, '');
     for (const c of group.commands) {
-      const reply = await handle(c, ctx);
-      out.push('```', `$ shiftprobe "${c}"`, renderText(reply, { width: 92 }), '```', '');
+      const text = typeof c === 'string' ? c : c.text;
+      const file = typeof c === 'string' ? undefined : c.file;
+      const reply = await handle(text, file ? { ...ctx, attachment: { name: file, text: readFileSync(`examples/maps/${file}`, 'utf8') } } : ctx);
+      out.push('```', `$ shiftprobe ${file ? `--file examples/maps/${file} ` : ''}"${text}"`, renderText(reply, { width: 92 }), '```', '');
     }
   }
   out.push('## JSON (`--json`)', '');
