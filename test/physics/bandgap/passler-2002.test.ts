@@ -1,7 +1,7 @@
 /**
  * Pässler's silicon gap against M. A. Green's table of Eg(T) (J. Appl. Phys. 67, 2944 (1990),
  * Table; 50–300 K after W. Bludau, A. Onton, W. Heinke, J. Appl. Phys. 45, 1846 (1974)), as
- * transcribed in a public implementation (values not re-checked against the paper: from a
+ * copied into an open-source implementation (values not re-checked against the paper: from a
  * secondary source, docs/references.md).
  *
  * Tolerances: 0.5 meV to 400 K (the table's last digit is 0.1 meV; Pässler fitted the same

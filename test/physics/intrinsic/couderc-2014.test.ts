@@ -13,8 +13,8 @@ const K_EV = 8.617333262e-5; // eV/K, CODATA 2018 (exact k / exact e)
 
 /**
  * K. Misiakos, D. Tsamakis, J. Appl. Phys. 74, 3293 (1993): measured n_i (cm⁻³) at 78–340 K, as
- * transcribed in a public implementation of the paper's table (the 300 K point, 9.7e9, is the
- * abstract's; the others are not re-checked against the paper: secondary source).
+ * copied from the paper's table into an open-source implementation (the 300 K point, 9.7e9, is
+ * the abstract's; the others are not re-checked against the paper: secondary source).
  */
 const MISIAKOS_POINTS: ReadonlyArray<readonly [number, number]> = [
   [77.8, 5.0e-20], [100.0, 2.0e-11], [120.75, 3.4e-6], [137.5, 4.6e-3], [148.4, 0.21], [169.7, 84],
@@ -49,11 +49,11 @@ describe('Couderc–Amara–Lemiti 2014 n_i(T) for silicon (the default)', () =>
 
   // Above the paper's 400 K the same form is an extrapolation. T. Wasserab's evaluation from the
   // band structure with temperature-dependent masses (Z. Naturforsch. 32a, 746 (1977)),
-  // n_i = 5.71e19·(T/300)^2.365·exp(−6733/T) cm⁻³ as transcribed in a public implementation
+  // n_i = 5.71e19·(T/300)^2.365·exp(−6733/T) cm⁻³ as copied into an open-source implementation
   // (secondary source, docs/references.md), is an independent wide-range published value. At
   // 300 K it gives 1.02e10 (before the band-gap-narrowing reassessment: 5.6 % above); from 350 K
   // to 700 K the two agree within 4 % (measured worst 3.2 %; the tolerance leaves room for the
-  // transcription's rounding, not for a different curve).
+  // copy's rounding, not for a different curve).
   it('stays within 4 % of Wasserab’s 1977 evaluation from 350 K to 700 K, past its own range', () => {
     for (let T = 350; T <= 700; T += 25) {
       expect(coudercDensityPerCm3(T)).toBeWithinRelative(5.71e19 * Math.pow(T / 300, 2.365) * Math.exp(-6733 / T), 0.04);
