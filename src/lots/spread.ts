@@ -33,9 +33,13 @@ export function spreadOf(values: readonly number[], definition: SpreadDefinition
     if (v > max) max = v;
     sum += v;
   }
-  const mean = sum / values.length;
+  return spreadOfRange(min, max, sum / values.length, values.length, definition);
+}
+
+/** The spread of values known by their minimum, maximum, mean and count (a map's summary). */
+export function spreadOfRange(min: number, max: number, mean: number, count: number, definition: SpreadDefinition): Spread {
   const base = definition === 'range-over-min' ? min : mean;
-  return { spreadPercent: ((max - min) / base) * 100, minOhmCm: min, maxOhmCm: max, meanOhmCm: mean, count: values.length };
+  return { spreadPercent: ((max - min) / base) * 100, minOhmCm: min, maxOhmCm: max, meanOhmCm: mean, count };
 }
 
 /**

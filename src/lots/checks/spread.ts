@@ -10,7 +10,36 @@ import {
 import type { Check } from '../evaluation-types.js';
 import type { RecordRequest } from '../readings.js';
 import type { Product } from '../spec/schema.js';
-import { waferSummaries, waferToWaferSpread, type PlaceValue } from '../spread.js';
+import { waferSummaries, waferToWaferSpread, type PlaceValue, type Spread } from '../spread.js';
+
+/** One wafer's site-to-site spread (spot readings or a map's sites) against the product's limit. */
+export function siteSpreadCheck(product: Product, wafer: number, s: Spread): { checks: Check[]; findings: FlagFinding[] } {
+  const checks: Check[] = [];
+  const findings: FlagFinding[] = [];
+  const siteLimit = product.spread?.siteToSitePercent;
+  if (siteLimit === undefined) return { checks, findings };
+  const status = s.spreadPercent > siteLimit ? 'fail' : 'pass';
+  checks.push({ check: 'site_spread', wafer, spreadPercent: s.spreadPercent, limitPercent: siteLimit, count: s.count, status });
+  if (status === 'fail') {
+    findings.push({
+      code: 'spread_over_limit',
+      scope: siteSpreadScope(wafer),
+      wafer,
+      detail: {
+        code: 'spread_over_limit',
+        across: 'sites',
+        wafer,
+        spreadPercent: s.spreadPercent,
+        limitPercent: siteLimit,
+        definition: product.spread!.definition,
+        minOhmCm: s.minOhmCm,
+        maxOhmCm: s.maxOhmCm,
+        count: s.count,
+      },
+    });
+  }
+  return { checks, findings };
+}
 
 export function spreadChecks(
   product: Product,
@@ -28,29 +57,10 @@ export function spreadChecks(
   ];
   const wafers = waferSummaries(points, definition);
   const mine = wafers.find((w) => w.wafer === request.wafer);
-  const siteLimit = product.spread.siteToSitePercent;
-  if (siteLimit !== undefined && mine?.siteSpread && request.site !== undefined) {
-    const s = mine.siteSpread;
-    const status = s.spreadPercent > siteLimit ? 'fail' : 'pass';
-    checks.push({ check: 'site_spread', wafer: request.wafer, spreadPercent: s.spreadPercent, limitPercent: siteLimit, count: s.count, status });
-    if (status === 'fail') {
-      findings.push({
-        code: 'spread_over_limit',
-        scope: siteSpreadScope(request.wafer),
-        wafer: request.wafer,
-        detail: {
-          code: 'spread_over_limit',
-          across: 'sites',
-          wafer: request.wafer,
-          spreadPercent: s.spreadPercent,
-          limitPercent: siteLimit,
-          definition,
-          minOhmCm: s.minOhmCm,
-          maxOhmCm: s.maxOhmCm,
-          count: s.count,
-        },
-      });
-    }
+  if (mine?.siteSpread && request.site !== undefined) {
+    const site = siteSpreadCheck(product, request.wafer, mine.siteSpread);
+    checks.push(...site.checks);
+    findings.push(...site.findings);
   }
   const waferLimit = product.spread.waferToWaferPercent;
   const w2w = waferToWaferSpread(wafers, definition);

@@ -9,7 +9,9 @@
  * mean window when the product has one.
  */
 import type { Check, MapSummary } from '../evaluation-types.js';
-import { mapUniformityScope, siteSpreadScope, type FlagFinding } from '../flags.js';
+import { mapUniformityScope, type FlagFinding } from '../flags.js';
+import { spreadOfRange } from '../spread.js';
+import { siteSpreadCheck } from './spread.js';
 import type { Product } from '../spec/schema.js';
 
 export function uniformityChecks(product: Product, wafer: number, map: MapSummary): { checks: Check[]; findings: FlagFinding[] } {
@@ -28,31 +30,10 @@ export function uniformityChecks(product: Product, wafer: number, map: MapSummar
       });
     }
   }
-  const siteLimit = product.spread?.siteToSitePercent;
-  if (siteLimit !== undefined && map.count > 1) {
-    const definition = product.spread!.definition;
-    const base = definition === 'range-over-min' ? map.minimumOhmCm : map.meanOhmCm;
-    const spreadPercent = (100 * (map.maximumOhmCm - map.minimumOhmCm)) / base;
-    const status = spreadPercent > siteLimit ? 'fail' : 'pass';
-    checks.push({ check: 'site_spread', wafer, spreadPercent, limitPercent: siteLimit, count: map.count, status });
-    if (status === 'fail') {
-      findings.push({
-        code: 'spread_over_limit',
-        scope: siteSpreadScope(wafer),
-        wafer,
-        detail: {
-          code: 'spread_over_limit',
-          across: 'sites',
-          wafer,
-          spreadPercent,
-          limitPercent: siteLimit,
-          definition,
-          minOhmCm: map.minimumOhmCm,
-          maxOhmCm: map.maximumOhmCm,
-          count: map.count,
-        },
-      });
-    }
+  if (product.spread && map.count > 1) {
+    const sites = siteSpreadCheck(product, wafer, spreadOfRange(map.minimumOhmCm, map.maximumOhmCm, map.meanOhmCm, map.count, product.spread.definition));
+    checks.push(...sites.checks);
+    findings.push(...sites.findings);
   }
   return { checks, findings };
 }
