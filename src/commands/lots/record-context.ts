@@ -47,11 +47,11 @@ export async function productOfRecord(lots: LotService, request: Pick<RecordRequ
   return productId !== undefined ? lots.catalog.find(productId) : undefined;
 }
 
-/** Whether the reading is so far from its product's resistivity window that it needs confirming. */
-export async function implausibleReading(lots: LotService, request: RecordRequest, factor: number): Promise<Implausible | undefined> {
+/** Whether the reading is so far from its product's resistivity window that it needs confirming (`known`: the product, already looked up). */
+export async function implausibleReading(lots: LotService, request: RecordRequest, factor: number, known?: { product: Product | undefined }): Promise<Implausible | undefined> {
   const rho = resistivityOf(request);
   if (rho === undefined || !(factor > 1)) return undefined;
-  const product = await productOfRecord(lots, request);
+  const product = known ? known.product : await productOfRecord(lots, request);
   const window = product?.resistivityOhmCm;
   if (!product || !window) return undefined;
   if (rho > window.max * factor || rho < window.min / factor) {

@@ -229,9 +229,11 @@ export const recordCommand = defineCommand<RecordCommandRequest>({
     if (!lots) return errorReply('lots_unavailable', NOT_SET_UP);
     let record = req.record as RecordRequest;
     let mapAnalysis: ReturnType<typeof analyseMap> | undefined;
+    let known: { product: Product | undefined } | undefined;
     if (req.map) {
       try {
-        const built = await mapReading(req.map, record, ctx, await productOfRecord(lots, record));
+        known = { product: await productOfRecord(lots, record) };
+        const built = await mapReading(req.map, record, ctx, known.product);
         record = built.record;
         mapAnalysis = built.analysis;
       } catch (e) {
@@ -240,7 +242,7 @@ export const recordCommand = defineCommand<RecordCommandRequest>({
       }
     }
     if (!req.confirmed) {
-      const far = await implausibleReading(lots, record, lots.confirmFactor);
+      const far = await implausibleReading(lots, record, lots.confirmFactor, known);
       if (far) {
         // A map's file cannot ride on an answer button: the person sends file and command again.
         return {
