@@ -19,8 +19,7 @@ function mathUnit(value: number | string, unit?: string): Unit {
     const { create, unitDependencies } = createRequire(import.meta.url)('mathjs') as typeof import('mathjs');
     unitFactory = create({ unitDependencies: unitDependencies! }).unit as unknown as (...a: unknown[]) => Unit;
   }
-  const make = unitFactory as (...a: unknown[]) => Unit;
-  return unit === undefined ? make(value) : make(value, unit);
+  return unit === undefined ? unitFactory(value) : unitFactory(value, unit);
 }
 
 /** Units people type every shift, read without mathjs (the same factors it would give). */

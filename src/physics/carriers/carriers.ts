@@ -119,9 +119,9 @@ function outside(quantity: string, input: number, range: Range, model: string): 
     : [];
 }
 
-function resolveIntrinsic(material: Material, temperatureK: number, id?: string): Outcome<IntrinsicModel> {
-  // The default is the fit whose range covers the temperature, as for the `ni` command.
-  if (id === undefined) return ok(defaultIntrinsicModel(material, temperatureK));
+function resolveIntrinsic(material: Material, id?: string): Outcome<IntrinsicModel> {
+  // The material's default, as for the `ni` command.
+  if (id === undefined) return ok(defaultIntrinsicModel(material));
   const m = findIntrinsicModel(id);
   if (!m) return refuse({ code: 'unknown_model', model: id, known: INTRINSIC_MODELS.map((x) => x.id) });
   if (!m.materials.includes(material)) {
@@ -184,7 +184,7 @@ function carriersUnanchored(req: CarriersRequest): Outcome<CarriersResult> {
   if (!IONIZATION_MATERIALS.includes(material)) {
     return refuse({ code: 'not_covered', quantity: 'ionizationEnergyEv', material, covered: [...IONIZATION_MATERIALS] });
   }
-  const intrinsic = resolveIntrinsic(material, T, req.intrinsicModelId);
+  const intrinsic = resolveIntrinsic(material, req.intrinsicModelId);
   if (!intrinsic.ok) return intrinsic;
   const mobility = resolveMobility(req.mobilityModelId);
   if (!mobility.ok) return mobility;

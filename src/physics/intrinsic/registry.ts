@@ -43,31 +43,18 @@ export function findIntrinsicModel(id: string): IntrinsicModel | undefined {
 }
 
 /**
- * The default per material. Silicon has one continuous model on purpose: switching between
- * fits by temperature made steps of several per cent in n_i (and `ni` and `crossover`
- * disagreed); outside its validity the reply warns instead.
+ * The default per material, one model each, whatever the temperature. Silicon's is one
+ * continuous model on purpose: switching between fits by temperature made steps of several per
+ * cent in n_i (and `ni` and `crossover` disagreed); outside its validity the reply warns instead.
  */
-const DEFAULT_PREFERENCE: Readonly<Record<Material, readonly IntrinsicModel[]>> = {
-  Si: [couderc2014],
-  Ge: [densityOfStatesModel],
-  GaAs: [densityOfStatesModel],
+const DEFAULT_MODEL: Readonly<Record<Material, IntrinsicModel>> = {
+  Si: couderc2014,
+  Ge: densityOfStatesModel,
+  GaAs: densityOfStatesModel,
 };
 
-/**
- * The default model for a material: the first preference whose validity covers the
- * temperature, else the first preference (the reply then warns). Each material has one
- * preference today, so the default does not depend on the temperature.
- */
-export function defaultIntrinsicModel(material: Material, temperatureK?: number): IntrinsicModel {
-  const prefs = DEFAULT_PREFERENCE[material];
-  if (temperatureK !== undefined) {
-    const covering = prefs.find((m) => {
-      const v = m.validityTemperatureKFor?.(material) ?? m.validityTemperatureK;
-      return temperatureK >= v.min && temperatureK <= v.max;
-    });
-    if (covering) return covering;
-  }
-  return prefs[0]!;
+export function defaultIntrinsicModel(material: Material): IntrinsicModel {
+  return DEFAULT_MODEL[material];
 }
 
 export interface IntrinsicDensityResult {
@@ -89,7 +76,7 @@ export interface IntrinsicDensityResult {
  */
 export function intrinsicDensityPerCm3(material: Material, temperatureK: number, modelId?: string): number {
   if (!(temperatureK > 0)) return Number.NaN;
-  const model = modelId === undefined ? defaultIntrinsicModel(material, temperatureK) : findIntrinsicModel(modelId);
+  const model = modelId === undefined ? defaultIntrinsicModel(material) : findIntrinsicModel(modelId);
   if (!model || !model.materials.includes(material)) return Number.NaN;
   return model.intrinsicDensityPerCm3(material, temperatureK);
 }
@@ -111,7 +98,7 @@ export function intrinsicDensity(req: {
     }
     model = found;
   } else {
-    model = defaultIntrinsicModel(material, temperatureK);
+    model = defaultIntrinsicModel(material);
   }
   if (temperatureK > MELTING_POINT_K[material]) {
     return refuse({ code: 'above_melting_point', material, temperatureK, meltingPointK: MELTING_POINT_K[material] });

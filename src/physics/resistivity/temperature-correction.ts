@@ -164,8 +164,8 @@ export function correctResistivityToReference(req: TemperatureCorrectionRequest)
     }
     intrinsic = found;
   } else {
-    // One model for both temperatures: the fit covering the reading's temperature.
-    intrinsic = defaultIntrinsicModel('Si', T);
+    // One model for both temperatures: silicon's default.
+    intrinsic = defaultIntrinsicModel('Si');
   }
 
   const niAt = (t: number) => intrinsic.intrinsicDensityPerCm3('Si', t);
